@@ -1,0 +1,52 @@
+import type { Server } from 'node:http';
+import { createApp } from './app.js';
+import { readConfig } from './config.js';
+import { applyMigrations, openDatabase } from './db/database.js';
+import { pino } from 'pino';
+
+const config = readConfig();
+const log = pino({ level: config.logLevel });
+const database = openDatabase(config.databaseUrl);
+
+try {
+  await applyMigrations(database.db);
+} catch (error) {
+  log.fatal({ err: error }, `cannot migrate the database at ${redactUrl(config.databaseUrl)}`);
+  await database.pool.end();
+  process.exit(1);
+}
+
+const app = createApp(config, database);
+const server: Server = app.listen(config.port, config.host, () => {
+  const address = server.address();
+  const port = typeof address === 'object' && address ? address.port : config.port;
+  log.info(`Benchtide is serving on http://${config.host}:${port}`);
+});
+server.on('error', (error) => {
+  log.fatal({ err: error }, 'cannot listen');
+  process.exit(1);
+});
+
+let stopping = false;
+function shutDown(signal: string): void {
+  if (stopping) return;
+  stopping = true;
+  log.info(`${signal}: finishing requests, then stopping`);
+  // Requests in flight finish; idle keep-alive sockets are closed so the process can exit.
+  server.close(async () => {
+    await database.pool.end();
+    log.info('stopped');
+    process.exit(0);
+  });
+  server.closeIdleConnections();
+  setTimeout(() => {
+    log.warn('requests still open after 10 s; stopping anyway');
+    process.exit(1);
+  }, 10_000).unref();
+}
+process.on('SIGTERM', () => shutDown('SIGTERM'));
+process.on('SIGINT', () => shutDown('SIGINT'));
+
+function redactUrl(url: string): string {
+  return url.replace(/\/\/([^:@/]+):[^@/]+@/, '//$1:***@');
+}

@@ -1,0 +1,10 @@
+/** The screens in the navigation, in the order a modeller reaches for them. */
+export interface NavigationEntry {
+  path: string;
+  label: string;
+  icon: string;
+}
+
+export const NAVIGATION: readonly NavigationEntry[] = [
+  { path: '/', label: 'Bench', icon: 'bench' },
+];
