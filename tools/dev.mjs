@@ -8,10 +8,18 @@ await main(async () => {
   const env = { ...process.env, DATABASE_URL: databaseUrl };
   const children = [
     spawn(process.execPath, ['--watch', '--import', 'tsx', 'server/main.ts'], { cwd: root, stdio: 'inherit', env }),
-    spawn(process.execPath, ['node_modules/@angular/cli/bin/ng.js', 'serve', '--host', '127.0.0.1'], { cwd: root, stdio: 'inherit', env }),
+    spawn(process.execPath, ['node_modules/@angular/cli/bin/ng.js', 'serve', '--host', '127.0.0.1'], {
+      cwd: root,
+      stdio: 'inherit',
+      env,
+    }),
   ];
   console.log('\nBenchtide (live reload): http://127.0.0.1:4200  (API on :3000)\n');
   const stopAll = (signal) => children.forEach((child) => child.kill(signal));
   for (const signal of ['SIGINT', 'SIGTERM']) process.on(signal, () => stopAll(signal));
-  for (const child of children) child.on('exit', () => { stopAll('SIGTERM'); process.exitCode = 1; });
+  for (const child of children)
+    child.on('exit', () => {
+      stopAll('SIGTERM');
+      process.exitCode = 1;
+    });
 });

@@ -9,7 +9,9 @@ const seeds = {
   benchPaper: '#F7F4EE', // neutral hue
   signalRed: '#B3261E', // error
 };
-const TONES = [0, 4, 5, 6, 10, 12, 15, 17, 20, 22, 24, 25, 30, 35, 40, 50, 60, 70, 80, 87, 90, 92, 94, 95, 96, 98, 99, 100];
+const TONES = [
+  0, 4, 5, 6, 10, 12, 15, 17, 20, 22, 24, 25, 30, 35, 40, 50, 60, 70, 80, 87, 90, 92, 94, 95, 96, 98, 99, 100,
+];
 
 const hct = (hex) => Hct.fromInt(argbFromHex(hex));
 const palettes = {

@@ -109,7 +109,7 @@ function removeStalePidFile(dir) {
   const pidFile = join(dir, 'postmaster.pid');
   if (!existsSync(pidFile)) return;
   const pid = Number(readFileSync(pidFile, 'utf8').split('\n')[0]);
-  let alive = false;
+  let alive;
   try {
     alive = readFileSync(`/proc/${pid}/cmdline`, 'utf8').includes('postgres');
   } catch {
@@ -148,7 +148,13 @@ export async function start() {
     prepareDataDir(dir);
     say(`creating a new cluster in ${dir}`);
     const init = asClusterUser(join(bin, 'initdb'), [
-      '-D', dir, '-U', PG_USER, '--auth=trust', '--encoding=UTF8', '--locale=C.UTF-8',
+      '-D',
+      dir,
+      '-U',
+      PG_USER,
+      '--auth=trust',
+      '--encoding=UTF8',
+      '--locale=C.UTF-8',
     ]);
     if (init.status !== 0) throw new SetupError(`initdb failed:\n${init.stderr || init.stdout}`);
   }
@@ -195,9 +201,13 @@ export function status() {
 export function ensureDatabase(name, { fresh = false } = {}) {
   const bin = postgresBinDir();
   const psql = (sql) =>
-    spawnSync(join(bin, 'psql'), ['-h', '127.0.0.1', '-p', String(PG_PORT), '-U', PG_USER, '-d', 'postgres', '-tAc', sql], {
-      encoding: 'utf8',
-    });
+    spawnSync(
+      join(bin, 'psql'),
+      ['-h', '127.0.0.1', '-p', String(PG_PORT), '-U', PG_USER, '-d', 'postgres', '-tAc', sql],
+      {
+        encoding: 'utf8',
+      },
+    );
   if (!/^[a-z_][a-z0-9_]*$/.test(name)) throw new SetupError(`bad database name ${name}`);
   if (fresh) psql(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
   const exists = psql(`SELECT 1 FROM pg_database WHERE datname = '${name}'`);

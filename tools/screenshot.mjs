@@ -9,8 +9,15 @@ if (!url || !out) {
 }
 const browser = await chromium.launch({
   executablePath: '/usr/bin/chromium',
-  args: ['--no-sandbox', '--disable-gpu', '--disable-dev-shm-usage', '--disable-background-networking',
-    '--disable-component-update', '--disable-sync', '--no-first-run'],
+  args: [
+    '--no-sandbox',
+    '--disable-gpu',
+    '--disable-dev-shm-usage',
+    '--disable-background-networking',
+    '--disable-component-update',
+    '--disable-sync',
+    '--no-first-run',
+  ],
 });
 const page = await browser.newPage({ viewport: { width: Number(width), height: Number(height) }, colorScheme: scheme });
 page.on('console', (message) => console.log(`console ${message.type()}: ${message.text()}`));

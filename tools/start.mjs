@@ -5,7 +5,16 @@ import { join } from 'node:path';
 import { main, root, runNode, setUp } from './setup.mjs';
 
 const APP_INDEX = join(root, 'dist', 'benchtide', 'browser', 'index.html');
-const APP_SOURCES = ['src', 'shared', 'public', 'angular.json', 'ngsw-config.json', 'package-lock.json', 'tsconfig.json', 'tsconfig.app.json'];
+const APP_SOURCES = [
+  'src',
+  'shared',
+  'public',
+  'angular.json',
+  'ngsw-config.json',
+  'package-lock.json',
+  'tsconfig.json',
+  'tsconfig.app.json',
+];
 
 function newestChange(path) {
   const stat = statSync(path);

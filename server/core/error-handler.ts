@@ -28,10 +28,15 @@ export const errorHandler: ErrorRequestHandler = (error: unknown, req, res, _nex
   const httpish = (error ?? {}) as HttpishError;
   const status = httpish.status ?? httpish.statusCode;
   if (status && status >= 400 && status < 500) {
-    const [code, message] = REQUEST_ERRORS[httpish.type ?? ''] ?? ['bad_request', 'The request could not be understood.'];
+    const [code, message] = REQUEST_ERRORS[httpish.type ?? ''] ?? [
+      'bad_request',
+      'The request could not be understood.',
+    ];
     res.status(status).json({ error: { code, message } });
     return;
   }
   req.log?.error({ err: error }, 'unhandled error');
-  res.status(500).json({ error: { code: 'internal', message: 'Something went wrong on the server. Nothing was saved.' } });
+  res
+    .status(500)
+    .json({ error: { code: 'internal', message: 'Something went wrong on the server. Nothing was saved.' } });
 };

@@ -5,6 +5,4 @@ export interface NavigationEntry {
   icon: string;
 }
 
-export const NAVIGATION: readonly NavigationEntry[] = [
-  { path: '/', label: 'Bench', icon: 'bench' },
-];
+export const NAVIGATION: readonly NavigationEntry[] = [{ path: '/', label: 'Bench', icon: 'bench' }];

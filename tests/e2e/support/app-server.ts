@@ -1,0 +1,61 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import { createServer } from 'node:net';
+import { TEST_DATABASE_URL } from '../../support/test-database.js';
+
+export interface RunningApp {
+  origin: string;
+  stop(): Promise<void>;
+}
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const probe = createServer();
+    probe.once('error', reject);
+    probe.listen(0, '127.0.0.1', () => {
+      const address = probe.address();
+      const port = typeof address === 'object' && address ? address.port : 0;
+      probe.close(() => resolve(port));
+    });
+  });
+}
+
+async function waitForHealth(origin: string, child: ChildProcess): Promise<void> {
+  const deadline = Date.now() + 30_000;
+  while (Date.now() < deadline) {
+    if (child.exitCode !== null) throw new Error(`the server exited with code ${child.exitCode}`);
+    try {
+      const response = await fetch(`${origin}/api/health`);
+      if (response.ok) return;
+    } catch {
+      // not listening yet
+    }
+    await new Promise((resolve) => setTimeout(resolve, 200));
+  }
+  throw new Error('the server did not answer /api/health within 30 s');
+}
+
+/** The real production server as its own process, serving the production build, on a free port. */
+export async function startAppServer(): Promise<RunningApp> {
+  const port = await freePort();
+  const child = spawn(process.execPath, ['--import', 'tsx', 'server/main.ts'], {
+    stdio: ['ignore', 'ignore', 'inherit'],
+    env: {
+      ...process.env,
+      NODE_ENV: 'production',
+      PORT: String(port),
+      DATABASE_URL: TEST_DATABASE_URL,
+      LOG_LEVEL: 'warn',
+    },
+  });
+  const origin = `http://127.0.0.1:${port}`;
+  await waitForHealth(origin, child);
+  return {
+    origin,
+    stop: () =>
+      new Promise<void>((resolve) => {
+        if (child.exitCode !== null) return resolve();
+        child.once('exit', () => resolve());
+        child.kill('SIGTERM');
+      }),
+  };
+}

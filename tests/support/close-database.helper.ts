@@ -1,0 +1,5 @@
+import { closeTestDatabase } from './test-database.js';
+
+afterAll(async () => {
+  await closeTestDatabase();
+});
