@@ -1,0 +1,135 @@
+/**
+ * Display strings for quantities. Deterministic on every device: '.' as the decimal
+ * separator, no grouping, no locale data, so a plan reads the same on phone and server.
+ */
+import { roundToDecimals } from './rounding.js';
+import {
+  fromCelsius,
+  fromG,
+  fromMl,
+  fromMm,
+  type LengthUnit,
+  type MassUnit,
+  type TemperatureUnit,
+  type VolumeUnit,
+} from './units.js';
+
+export interface NumberFormatOptions {
+  /** Significant figures wanted before the point limits them (default 3). */
+  readonly significant?: number;
+  /** Never more decimals than this (default 2). */
+  readonly maxDecimals?: number;
+  /** Exactly this many decimals, trailing zeros kept (e.g. the scale's resolution). */
+  readonly decimals?: number;
+}
+
+type Precision = Required<Pick<NumberFormatOptions, 'significant' | 'maxDecimals'>>;
+
+export const UNIT_LABELS: Readonly<Record<LengthUnit | VolumeUnit | MassUnit, string>> = {
+  mm: 'mm',
+  cm: 'cm',
+  m: 'm',
+  in: 'in',
+  ft: 'ft',
+  mL: 'mL',
+  L: 'L',
+  usFlOz: 'fl oz',
+  in3: 'in³',
+  cm3: 'cm³',
+  g: 'g',
+  kg: 'kg',
+  oz: 'oz',
+  lb: 'lb',
+};
+
+export const TEMPERATURE_LABELS: Readonly<Record<TemperatureUnit, string>> = { C: '°C', F: '°F' };
+
+// Finer than a ruler, cup or kitchen scale can read is noise on the bench.
+const LENGTH_PRECISION: Record<LengthUnit, Precision> = {
+  mm: { significant: 3, maxDecimals: 2 },
+  cm: { significant: 3, maxDecimals: 2 },
+  m: { significant: 4, maxDecimals: 3 },
+  in: { significant: 3, maxDecimals: 3 },
+  ft: { significant: 3, maxDecimals: 2 },
+};
+const VOLUME_PRECISION: Record<VolumeUnit, Precision> = {
+  mL: { significant: 3, maxDecimals: 1 },
+  L: { significant: 3, maxDecimals: 3 },
+  usFlOz: { significant: 3, maxDecimals: 2 },
+  in3: { significant: 3, maxDecimals: 2 },
+  cm3: { significant: 3, maxDecimals: 1 },
+};
+const MASS_PRECISION: Record<MassUnit, Precision> = {
+  g: { significant: 3, maxDecimals: 2 },
+  kg: { significant: 3, maxDecimals: 3 },
+  oz: { significant: 3, maxDecimals: 2 },
+  lb: { significant: 3, maxDecimals: 2 },
+};
+const TEMPERATURE_PRECISION: Precision = { significant: 3, maxDecimals: 1 };
+
+/**
+ * Keeps every whole digit and adds decimals only up to the significant figures:
+ * 1435 -> "1435", 22.43 -> "22.4", 0.254 -> "0.25" (max 2 decimals), 0.1 + 0.2 -> "0.3".
+ */
+export function formatNumber(value: number, options: NumberFormatOptions = {}): string {
+  if (!Number.isFinite(value)) {
+    return '—';
+  }
+  if (options.decimals !== undefined) {
+    return roundToDecimals(value, options.decimals).toFixed(options.decimals);
+  }
+  const significant = options.significant ?? 3;
+  const maxDecimals = options.maxDecimals ?? 2;
+  const magnitude = value === 0 ? 0 : Math.floor(Math.log10(Math.abs(value)));
+  const places = Math.min(maxDecimals, Math.max(0, significant - 1 - magnitude));
+  const text = roundToDecimals(value, places).toFixed(places);
+  return places > 0 ? text.replace(/\.?0+$/, '') : text;
+}
+
+export function formatLength(mm: number, unit: LengthUnit = 'mm', options: NumberFormatOptions = {}): string {
+  return withUnit(fromMm(mm, unit), UNIT_LABELS[unit], { ...LENGTH_PRECISION[unit], ...options });
+}
+
+export function formatVolume(ml: number, unit: VolumeUnit = 'mL', options: NumberFormatOptions = {}): string {
+  return withUnit(fromMl(ml, unit), UNIT_LABELS[unit], { ...VOLUME_PRECISION[unit], ...options });
+}
+
+export function formatMass(g: number, unit: MassUnit = 'g', options: NumberFormatOptions = {}): string {
+  return withUnit(fromG(g, unit), UNIT_LABELS[unit], { ...MASS_PRECISION[unit], ...options });
+}
+
+export function formatTemperature(
+  celsius: number,
+  unit: TemperatureUnit = 'C',
+  options: NumberFormatOptions = {},
+): string {
+  return `${formatNumber(fromCelsius(celsius, unit), { ...TEMPERATURE_PRECISION, ...options })} ${TEMPERATURE_LABELS[unit]}`;
+}
+
+/**
+ * "45 min", "2 h 10 min", "3 d 4 h". Past a day, minutes are rounded away: nobody
+ * times a full cure to the minute.
+ */
+export function formatDuration(minutes: number): string {
+  if (!Number.isFinite(minutes)) {
+    return '—';
+  }
+  const sign = minutes < 0 ? '-' : '';
+  const total = Math.round(Math.abs(minutes));
+  if (total < 60) {
+    return `${sign}${total} min`;
+  }
+  if (total < 24 * 60) {
+    const hours = Math.floor(total / 60);
+    const rest = total % 60;
+    return `${sign}${hours} h${rest > 0 ? ` ${rest} min` : ''}`;
+  }
+  const totalHours = Math.round(total / 60);
+  const days = Math.floor(totalHours / 24);
+  const hours = totalHours % 24;
+  return `${sign}${days} d${hours > 0 ? ` ${hours} h` : ''}`;
+}
+
+function withUnit(value: number, label: string, options: NumberFormatOptions): string {
+  return `${formatNumber(value, options)} ${label}`;
+}
