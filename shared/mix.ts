@@ -98,25 +98,23 @@ export function mixAmounts(input: MixAmountsInput): MixAmounts {
   const perLayer = roundAmounts(exactPerLayer, scaleResolutionG, cupResolutionMl);
   const total = roundAmounts(scaleAmounts(perLayer, layerCount), scaleResolutionG, cupResolutionMl);
 
+  // Every amount is shown in grams first: weighing is the finest measure a bench has, whatever
+  // the basis of the ratio, so the warnings judge the scale, not the cup.
   const nothingToMix = input.volumeMl === 0;
-  const shiftPercent = nothingToMix ? 0 : ratioShiftPercent(ratio, perLayer);
+  const shiftPercent = nothingToMix || singlePart ? 0 : weighedRatioShiftPercent(exactPerLayer, perLayer);
   const warnings: TradeWarning<MixWarningCode>[] = [];
-  const step = ratio.basis === 'weight' ? scaleResolutionG : cupResolutionMl;
-  const [exactA, exactB] = measuredParts(exactPerLayer, ratio.basis);
-  const smallerPart = singlePart ? exactA : Math.min(exactA, exactB);
-  if (!nothingToMix && smallerPart < MIN_STEPS_PER_PART * step) {
+  const smallerPartG = singlePart ? exactPerLayer.partAG : Math.min(exactPerLayer.partAG, exactPerLayer.partBG);
+  if (!nothingToMix && smallerPartG < MIN_STEPS_PER_PART * scaleResolutionG) {
     warnings.push({
       code: 'batch-too-small',
       message:
-        ratio.basis === 'weight'
-          ? 'One part is too small to weigh within 5% on this scale. Use a finer scale or pour more at once.'
-          : 'One part is too small to measure within 5% in this cup. Use a syringe or a finer cup, or pour more at once.',
+        'One part is too small to weigh within 5% on this scale. Use a scale that reads finer or mix more at once.',
     });
   }
   if (shiftPercent > MAX_RATIO_SHIFT_PERCENT) {
     warnings.push({
       code: 'ratio-shifted',
-      message: `Rounded to what can be measured, the mix is ${Math.round(shiftPercent)}% off the data-sheet ratio. Measure more finely or mix a larger batch.`,
+      message: `Rounded to what the scale can weigh, the mix is ${Math.round(shiftPercent)}% off the data-sheet ratio. Use a finer scale or mix a larger batch.`,
     });
   }
 
@@ -134,21 +132,12 @@ export function mixAmounts(input: MixAmountsInput): MixAmounts {
   };
 }
 
-/** The parts as they are measured: grams for a weight ratio, millilitres for a volume ratio. */
-function measuredParts(parts: PartAmounts, basis: MixBasis): [number, number] {
-  return basis === 'weight' ? [parts.partAG, parts.partBG] : [parts.partAMl, parts.partBMl];
-}
-
-function ratioShiftPercent(ratio: MixRatio, perLayer: PartAmounts): number {
-  if (isSinglePart(ratio)) {
-    return 0;
-  }
-  const [measuredA, measuredB] = measuredParts(perLayer, ratio.basis);
-  if (measuredA === 0) {
+/** How far the weighed part B per gram of part A strays from the exact one, in percent. */
+function weighedRatioShiftPercent(exact: PartAmounts, weighed: PartAmounts): number {
+  if (weighed.partAG === 0) {
     return 100;
   }
-  const intendedBPerA = (ratio.partB ?? 0) / ratio.partA;
-  return Math.abs(measuredB / measuredA / intendedBPerA - 1) * 100;
+  return Math.abs(weighed.partBG / weighed.partAG / (exact.partBG / exact.partAG) - 1) * 100;
 }
 
 function splitParts(

@@ -1,13 +1,12 @@
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import { MatRippleModule } from '@angular/material/core';
 import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { Connectivity } from './core/connectivity';
 import { NAVIGATION } from './core/navigation';
 
 @Component({
   selector: 'bt-root',
-  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatIconModule, MatRippleModule],
+  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatIconModule],
   templateUrl: './app.html',
   styleUrl: './app.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

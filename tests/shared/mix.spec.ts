@@ -86,6 +86,27 @@ describe('mix', () => {
       expect(fine.warnings).toEqual([]);
     });
 
+    it('should judge a volume ratio by the scale too, since every part is shown in grams (common practice: weighing beats cup marks)', () => {
+      const ratio: MixRatio = { basis: 'volume', partA: 2, partB: 1 };
+      // 12 mL of part B is 12 cup marks but 116 steps of a 0.1 g scale: weighable.
+      const weighable = mixAmounts({
+        volumeMl: 36,
+        ratio,
+        densityAGPerMl: 1.1,
+        densityBGPerMl: 0.97,
+        scaleResolutionG: 0.1,
+      });
+      expect(weighable.warnings).toEqual([]);
+      const coarse = mixAmounts({
+        volumeMl: 36,
+        ratio,
+        densityAGPerMl: 1.1,
+        densityBGPerMl: 0.97,
+        scaleResolutionG: 1,
+      });
+      expect(coarse.warnings.map((warning) => warning.code)).toContain('batch-too-small');
+    });
+
     it('should warn when rounding moves the ratio more than 3%: 100:30 of 3 g on a 1 g scale weighs 2 g + 1 g', () => {
       const mix = mixAmounts({
         volumeMl: 3,

@@ -5,4 +5,8 @@ export interface NavigationEntry {
   icon: string;
 }
 
-export const NAVIGATION: readonly NavigationEntry[] = [{ path: '/', label: 'Bench', icon: 'bench' }];
+export const NAVIGATION: readonly NavigationEntry[] = [
+  { path: '/', label: 'Bench', icon: 'bench' },
+  { path: '/pour-planner', label: 'Pour planner', icon: 'pour' },
+  { path: '/scale-tools', label: 'Scale tools', icon: 'scale' },
+];

@@ -1,0 +1,190 @@
+import { FormControl, FormGroup } from '@angular/forms';
+import {
+  findMaterialPreset,
+  fromCelsius,
+  fromMl,
+  fromMm,
+  toCelsius,
+  toMl,
+  toMm,
+  type DisplayUnits,
+  type MaterialDataSheetInput,
+  type PourPlanRequestInput,
+  type PourShapeInput,
+} from '@benchtide/shared';
+import { parseDecimal } from '../core/decimal-input';
+
+export type ShapeKind = PourShapeInput['kind'];
+
+/** Every number is typed as text in the display units, so a comma or a half-typed value never throws. */
+function text(value = ''): FormControl<string> {
+  return new FormControl(value, { nonNullable: true });
+}
+
+export function createPourForm() {
+  return new FormGroup({
+    shapeKind: new FormControl<ShapeKind>('rectangle', { nonNullable: true }),
+    length: text(),
+    width: text(),
+    diameter: text(),
+    area: text(),
+    outline: text(),
+    depth: text(),
+    displaced: text('0'),
+    wastePercent: text('10'),
+    presetId: text('deep-pour-epoxy'),
+    basis: new FormControl<'volume' | 'weight'>('volume', { nonNullable: true }),
+    partA: text(),
+    partB: text(),
+    densityA: text(),
+    densityB: text(),
+    potLifeMin: text(),
+    recoatH: text(),
+    recoatMaxH: text(),
+    demouldH: text(),
+    fullCureH: text(),
+    referenceTemp: text(),
+    minCureTemp: text(),
+    maxLayer: text(),
+    roomTemp: text(),
+    startAt: text(),
+  });
+}
+
+export type PourForm = ReturnType<typeof createPourForm>;
+export type PourFormValue = ReturnType<PourForm['getRawValue']>;
+
+/** Area typed in: cm² for metric, in² for imperial. */
+export const AREA_UNIT = { mm: 'cm²', in: 'in²' } as const;
+const MM2_PER_AREA_UNIT = { mm: 100, in: 645.16 } as const;
+
+function number(value: string): number {
+  return parseDecimal(value) ?? Number.NaN;
+}
+
+function optionalNumber(value: string): number | undefined {
+  return value.trim() === '' ? undefined : number(value);
+}
+
+/** "x, y" per line, in the display length unit. */
+export function parseOutline(outline: string, units: DisplayUnits) {
+  return outline
+    .split('\n')
+    .map((line) => line.trim())
+    .filter((line) => line !== '')
+    .map((line) => {
+      const [x = '', y = ''] = line.split(/[\s;]+|,\s+/);
+      return { xMm: toMm(number(x), units.length), yMm: toMm(number(y), units.length) };
+    });
+}
+
+function shapeFrom(value: PourFormValue, units: DisplayUnits): PourShapeInput {
+  const mm = (field: string) => toMm(number(field), units.length);
+  switch (value.shapeKind) {
+    case 'rectangle':
+      return { kind: 'rectangle', lengthMm: mm(value.length), widthMm: mm(value.width) };
+    case 'ellipse':
+      return { kind: 'ellipse', lengthMm: mm(value.length), widthMm: mm(value.width) };
+    case 'circle':
+      return { kind: 'circle', diameterMm: mm(value.diameter) };
+    case 'polygon':
+      return { kind: 'polygon', points: parseOutline(value.outline, units) };
+    case 'area':
+      return { kind: 'area', areaMm2: number(value.area) * MM2_PER_AREA_UNIT[units.length === 'in' ? 'in' : 'mm'] };
+  }
+}
+
+/** The form, in display units, as the SI request the shared maths and the server accept. */
+export function toPlanRequest(
+  value: PourFormValue,
+  units: DisplayUnits,
+  scaleResolutionG: number,
+): PourPlanRequestInput {
+  const partB = optionalNumber(value.partB);
+  const densityB = optionalNumber(value.densityB);
+  const recoatMaxH = optionalNumber(value.recoatMaxH);
+  const material: MaterialDataSheetInput = {
+    mixRatio: { basis: value.basis, partA: number(value.partA), ...(partB === undefined ? {} : { partB }) },
+    densityAGPerMl: number(value.densityA),
+    ...(densityB === undefined ? {} : { densityBGPerMl: densityB }),
+    potLifeMin: number(value.potLifeMin),
+    recoatMin: number(value.recoatH) * 60,
+    ...(recoatMaxH === undefined ? {} : { recoatMaxMin: recoatMaxH * 60 }),
+    demouldMin: number(value.demouldH) * 60,
+    fullCureMin: number(value.fullCureH) * 60,
+    referenceTempC: toCelsius(number(value.referenceTemp), units.temperature),
+    minCureTempC: toCelsius(number(value.minCureTemp), units.temperature),
+    maxLayerMm: toMm(number(value.maxLayer), units.length),
+  };
+  const startAt = new Date(value.startAt).getTime();
+  return {
+    shape: shapeFrom(value, units),
+    depthMm: toMm(number(value.depth), units.length),
+    displacedMl: toMl(number(value.displaced || '0'), units.volume),
+    wastePercent: number(value.wastePercent || '0'),
+    material,
+    roomTempC: toCelsius(number(value.roomTemp), units.temperature),
+    startAtMs: Number.isFinite(startAt) ? startAt : Number.NaN,
+    scaleResolutionG,
+  };
+}
+
+/** Shown numbers are trimmed so a converted value reads like one a person typed. */
+function shown(value: number): string {
+  return Number.isFinite(value) ? String(Math.round(value * 1000) / 1000) : '';
+}
+
+/** The data-sheet fields of a preset, in display units. */
+export function presetFields(presetId: string, units: DisplayUnits): Partial<PourFormValue> {
+  const preset = findMaterialPreset(presetId);
+  if (!preset) return {};
+  const sheet = preset.dataSheet;
+  const optional = (value: number | undefined, scale = 1) => (value === undefined ? '' : shown(value / scale));
+  return {
+    basis: sheet.mixRatio.basis,
+    partA: shown(sheet.mixRatio.partA),
+    partB: optional(sheet.mixRatio.partB),
+    densityA: shown(sheet.densityAGPerMl),
+    densityB: optional(sheet.densityBGPerMl),
+    potLifeMin: shown(sheet.potLifeMin),
+    recoatH: shown(sheet.recoatMin / 60),
+    recoatMaxH: optional(sheet.recoatMaxMin, 60),
+    demouldH: shown(sheet.demouldMin / 60),
+    fullCureH: shown(sheet.fullCureMin / 60),
+    referenceTemp: shown(fromCelsius(sheet.referenceTempC, units.temperature)),
+    minCureTemp: shown(fromCelsius(sheet.minCureTempC, units.temperature)),
+    maxLayer: shown(fromMm(sheet.maxLayerMm, units.length)),
+  };
+}
+
+const LENGTH_FIELDS = ['length', 'width', 'diameter', 'depth', 'maxLayer'] as const;
+const TEMPERATURE_FIELDS = ['referenceTemp', 'minCureTemp', 'roomTemp'] as const;
+
+/** Re-expresses the typed numbers when the modeller switches between metric and imperial. */
+export function convertFields(value: PourFormValue, from: DisplayUnits, to: DisplayUnits): Partial<PourFormValue> {
+  const change: Partial<PourFormValue> = {};
+  const convert = (field: string, fn: (n: number) => number) => {
+    const parsed = parseDecimal(field);
+    return parsed === null ? field : shown(fn(parsed));
+  };
+  for (const key of LENGTH_FIELDS) change[key] = convert(value[key], (n) => fromMm(toMm(n, from.length), to.length));
+  for (const key of TEMPERATURE_FIELDS) {
+    change[key] = convert(value[key], (n) => fromCelsius(toCelsius(n, from.temperature), to.temperature));
+  }
+  change.displaced = convert(value.displaced, (n) => fromMl(toMl(n, from.volume), to.volume));
+  change.area = convert(
+    value.area,
+    (n) =>
+      (n * MM2_PER_AREA_UNIT[from.length === 'in' ? 'in' : 'mm']) / MM2_PER_AREA_UNIT[to.length === 'in' ? 'in' : 'mm'],
+  );
+  change.outline = value.outline
+    .split('\n')
+    .map((line) =>
+      line
+        .split(/([\s;]+|,\s+)/)
+        .map((part) => (/^[\d.,-]+$/.test(part) ? convert(part, (n) => fromMm(toMm(n, from.length), to.length)) : part))
+        .join(''),
+    )
+    .join('\n');
+  return change;
+}

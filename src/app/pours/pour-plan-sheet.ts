@@ -1,0 +1,122 @@
+import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { MatCardModule } from '@angular/material/card';
+import { MatIconModule } from '@angular/material/icon';
+import {
+  decimalPlaces,
+  formatDuration,
+  formatLength,
+  formatMass,
+  formatNumber,
+  formatTemperature,
+  formatVolume,
+  type DisplayUnits,
+  type MaterialKind,
+  type PartAmounts,
+  type PourPlanResult,
+} from '@benchtide/shared';
+import { format } from 'date-fns';
+import { LayerDiagram } from './layer-diagram';
+import { PourCautions } from './pour-cautions';
+
+const WHEN = 'EEE d MMM, HH:mm';
+
+/** The plan as the modeller reads it at the bench: how much, how many layers, what to weigh, when. */
+@Component({
+  selector: 'bt-pour-plan-sheet',
+  imports: [MatCardModule, MatIconModule, LayerDiagram, PourCautions],
+  templateUrl: './pour-plan-sheet.html',
+  styleUrl: './pour-plan-sheet.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class PourPlanSheet {
+  readonly result = input.required<PourPlanResult>();
+  readonly units = input.required<DisplayUnits>();
+  readonly materialKind = input.required<MaterialKind>();
+
+  protected readonly plan = computed(() => {
+    const result = this.result();
+    return result.ok ? result.plan : null;
+  });
+  protected readonly errors = computed(() => {
+    const result = this.result();
+    return result.ok ? [] : result.errors;
+  });
+
+  protected readonly volume = computed(() => {
+    const plan = this.plan();
+    if (!plan) return null;
+    const { volume, mix } = plan;
+    const unit = this.units().volume;
+    return {
+      toMix: formatVolume(volume.totalToMixMl, unit),
+      toMixMass: formatMass(mix.exactTotal.totalG, this.units().mass),
+      area: formatNumber(volume.areaMm2 / (this.units().length === 'in' ? 645.16 : 100)),
+      areaUnit: this.units().length === 'in' ? 'in²' : 'cm²',
+      gross: formatVolume(volume.grossVolumeMl, unit),
+      displaced: formatVolume(volume.displacedMl, unit),
+      net: formatVolume(volume.netVolumeMl, unit),
+      wastePercent: formatNumber(volume.wastePercent),
+    };
+  });
+
+  protected readonly layers = computed(() => {
+    const plan = this.plan();
+    if (!plan) return null;
+    return {
+      count: plan.layers.count,
+      depth: formatLength(plan.layers.layerDepthMm, this.units().length),
+      volume: formatVolume(plan.layers.volumePerLayerMl, this.units().volume),
+      maxLayer: formatLength(plan.request.material.maxLayerMm, this.units().length),
+    };
+  });
+
+  protected readonly mix = computed(() => {
+    const plan = this.plan();
+    if (!plan) return null;
+    const { mix, request } = plan;
+    const decimals = this.units().mass === 'g' ? decimalPlaces(request.scaleResolutionG) : undefined;
+    const mass = (g: number) => formatMass(g, this.units().mass, decimals === undefined ? {} : { decimals });
+    const volume = (ml: number) => formatVolume(ml, this.units().volume);
+    const part = (amounts: PartAmounts, which: 'A' | 'B') => ({
+      mass: mass(which === 'A' ? amounts.partAG : amounts.partBG),
+      volume: volume(which === 'A' ? amounts.partAMl : amounts.partBMl),
+    });
+    const ratio = request.material.mixRatio;
+    return {
+      byWeight: mix.basis === 'weight',
+      singlePart: mix.singlePart,
+      ratio: mix.singlePart
+        ? 'single part'
+        : `${formatNumber(ratio.partA)} : ${formatNumber(ratio.partB ?? 0)} by ${mix.basis}`,
+      layerCount: mix.layerCount,
+      perLayer: { a: part(mix.perLayer, 'A'), b: part(mix.perLayer, 'B'), total: mass(mix.perLayer.totalG) },
+      total: { a: part(mix.total, 'A'), b: part(mix.total, 'B'), total: mass(mix.total.totalG) },
+    };
+  });
+
+  protected readonly cure = computed(() => {
+    const plan = this.plan();
+    if (!plan) return null;
+    const { cure } = plan;
+    const start = cure.layers[0]?.pourAtMs ?? 0;
+    const when = (ms: number) => ({ at: format(ms, WHEN), after: formatDuration((ms - start) / 60_000) });
+    return {
+      temperature: formatTemperature(cure.effectiveTempC, this.units().temperature),
+      factor: formatNumber(cure.factor, { significant: 3 }),
+      reliable: cure.reliable,
+      potLife: formatDuration(cure.times.potLifeMin),
+      layers: cure.layers.map((layer) => ({
+        layer: layer.layer,
+        pour: when(layer.pourAtMs),
+        potLifeEnds: when(layer.potLifeEndsAtMs),
+        recoatFrom: when(layer.recoatFromMs),
+        recoatUntil: layer.recoatUntilMs === undefined ? null : when(layer.recoatUntilMs),
+        last: layer.layer === cure.layers.length,
+      })),
+      demould: when(cure.demouldAtMs),
+      fullCure: when(cure.fullCureAtMs),
+    };
+  });
+
+  protected readonly warnings = computed(() => this.plan()?.warnings ?? []);
+}

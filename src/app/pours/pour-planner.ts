@@ -1,0 +1,124 @@
+import { ChangeDetectionStrategy, Component, computed, effect, inject, untracked } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { ReactiveFormsModule } from '@angular/forms';
+import { MatCardModule } from '@angular/material/card';
+import { MatChipsModule } from '@angular/material/chips';
+import { MatExpansionModule } from '@angular/material/expansion';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatSelectModule } from '@angular/material/select';
+import {
+  displayUnitsFor,
+  MATERIAL_PRESETS,
+  planPour,
+  TEMPERATURE_LABELS,
+  UNIT_LABELS,
+  type DisplayUnits,
+} from '@benchtide/shared';
+import { format } from 'date-fns';
+import { map, startWith } from 'rxjs';
+import { DevicePreferences, SCALE_RESOLUTIONS_G } from '../core/device-preferences';
+import { UnitSystemToggle } from '../core/unit-system-toggle';
+import { PourPlanDraft } from './pour-plan-draft';
+import { PourPlanSheet } from './pour-plan-sheet';
+import { AREA_UNIT, convertFields, presetFields, toPlanRequest, type ShapeKind } from './pour-form';
+
+const SHAPES: readonly { kind: ShapeKind; label: string }[] = [
+  { kind: 'rectangle', label: 'Rectangle' },
+  { kind: 'circle', label: 'Circle' },
+  { kind: 'ellipse', label: 'Oval' },
+  { kind: 'polygon', label: 'Traced outline' },
+  { kind: 'area', label: 'Area I know' },
+];
+
+@Component({
+  selector: 'bt-pour-planner',
+  imports: [
+    ReactiveFormsModule,
+    MatCardModule,
+    MatChipsModule,
+    MatExpansionModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    UnitSystemToggle,
+    PourPlanSheet,
+  ],
+  templateUrl: './pour-planner.html',
+  styleUrl: './pour-planner.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class PourPlanner {
+  private readonly preferences = inject(DevicePreferences);
+  private readonly draft = inject(PourPlanDraft);
+
+  protected readonly form = this.draft.form;
+  protected readonly shapes = SHAPES;
+  protected readonly presets = MATERIAL_PRESETS;
+  protected readonly resolutions = SCALE_RESOLUTIONS_G;
+
+  protected readonly units = computed<DisplayUnits>(() => {
+    const { unitSystem, temperatureUnit } = this.preferences.values();
+    return { ...displayUnitsFor(unitSystem), temperature: temperatureUnit };
+  });
+  protected readonly labels = computed(() => {
+    const units = this.units();
+    return {
+      length: UNIT_LABELS[units.length],
+      volume: UNIT_LABELS[units.volume],
+      temperature: TEMPERATURE_LABELS[units.temperature],
+      area: AREA_UNIT[units.length === 'in' ? 'in' : 'mm'],
+    };
+  });
+  protected readonly scaleResolutionG = computed(() => this.preferences.values().scaleResolutionG);
+
+  private readonly formValue = toSignal(
+    this.form.valueChanges.pipe(
+      startWith(null),
+      map(() => this.form.getRawValue()),
+    ),
+    { requireSync: true },
+  );
+  protected readonly shapeKind = computed(() => this.formValue().shapeKind);
+  protected readonly twoPart = computed(() => (Number(this.formValue().partB.replace(',', '.')) || 0) > 0);
+
+  protected readonly result = computed(() =>
+    planPour(toPlanRequest(this.formValue(), this.units(), this.scaleResolutionG())),
+  );
+  protected readonly errors = computed(() => {
+    const result = this.result();
+    return result.ok ? new Map<string, string>() : new Map(result.errors.map((error) => [error.path, error.message]));
+  });
+  protected readonly materialKind = computed(
+    () => MATERIAL_PRESETS.find((preset) => preset.id === this.formValue().presetId)?.kind ?? 'two-part-epoxy',
+  );
+
+  constructor() {
+    let previous = this.units();
+    effect(() => {
+      const next = this.units();
+      if (next !== previous) {
+        const from = previous;
+        previous = next;
+        untracked(() => this.form.patchValue(convertFields(this.form.getRawValue(), from, next)));
+      }
+    });
+    effect(() => this.draft.save(this.formValue(), this.units()));
+  }
+
+  protected error(path: string): string | undefined {
+    return this.errors().get(path);
+  }
+
+  protected choosePreset(presetId: string): void {
+    this.form.patchValue({ presetId, ...presetFields(presetId, this.units()) });
+  }
+
+  protected chooseResolution(scaleResolutionG: number): void {
+    this.preferences.update({ scaleResolutionG });
+  }
+
+  protected startNow(): void {
+    this.form.patchValue({ startAt: format(new Date(), "yyyy-MM-dd'T'HH:mm") });
+  }
+}
