@@ -51,8 +51,8 @@ const BASE = 18;
 })
 export class LayerDiagram {
   readonly layerCount = input.required<number>();
-  readonly depthMm = input.required<number>();
-  readonly maxLayerMm = input.required<number>();
+  /** The whole depth as the modeller reads it, in their units. */
+  readonly depth = input.required<string>();
 
   protected readonly width = WIDTH;
   protected readonly height = HEIGHT;
@@ -71,6 +71,7 @@ export class LayerDiagram {
   });
 
   protected readonly description = computed(
-    () => `Side view: ${this.layerCount()} layers filling ${this.depthMm()} mm of depth`,
+    () =>
+      `Side view: ${this.layerCount()} ${this.layerCount() === 1 ? 'layer' : 'layers'} filling ${this.depth()} of depth`,
   );
 }

@@ -17,12 +17,15 @@ export class PourPlanDraft {
   private readonly preferences = inject(DevicePreferences);
 
   readonly form = createPourForm();
+  /** The units the form's numbers are typed in; the form outlives the planner, the device's units may change. */
+  units: DisplayUnits;
 
   constructor() {
     const { unitSystem, temperatureUnit } = this.preferences.values();
     const units: DisplayUnits = { ...displayUnitsFor(unitSystem), temperature: temperatureUnit };
     const metric = displayUnitsFor('metric');
     const stored = this.load();
+    this.units = units;
     if (stored) {
       this.form.patchValue(stored.value);
       this.form.patchValue(convertFields(this.form.getRawValue(), stored.units, units));

@@ -65,6 +65,7 @@ export class PourPlanSheet {
     return {
       count: plan.layers.count,
       depth: formatLength(plan.layers.layerDepthMm, this.units().length),
+      totalDepth: formatLength(plan.request.depthMm, this.units().length),
       volume: formatVolume(plan.layers.volumePerLayerMl, this.units().volume),
       maxLayer: formatLength(plan.request.material.maxLayerMm, this.units().length),
     };

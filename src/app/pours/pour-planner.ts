@@ -31,6 +31,10 @@ const SHAPES: readonly { kind: ShapeKind; label: string }[] = [
   { kind: 'area', label: 'Area I know' },
 ];
 
+function sameUnits(a: DisplayUnits, b: DisplayUnits): boolean {
+  return a.length === b.length && a.volume === b.volume && a.mass === b.mass && a.temperature === b.temperature;
+}
+
 @Component({
   selector: 'bt-pour-planner',
   imports: [
@@ -94,14 +98,16 @@ export class PourPlanner {
   );
 
   constructor() {
-    let previous = this.units();
+    // Compared by content: a change of scale alone must not rewrite what the modeller typed.
     effect(() => {
       const next = this.units();
-      if (next !== previous) {
-        const from = previous;
-        previous = next;
-        untracked(() => this.form.patchValue(convertFields(this.form.getRawValue(), from, next)));
-      }
+      untracked(() => {
+        const from = this.draft.units;
+        if (!sameUnits(from, next)) {
+          this.form.patchValue(convertFields(this.form.getRawValue(), from, next));
+          this.draft.units = next;
+        }
+      });
     });
     effect(() => this.draft.save(this.formValue(), this.units()));
   }

@@ -55,6 +55,8 @@ export class FootprintComparison {
     this.bases().map((base) => ({
       id: base.scale.id,
       name: base.scale.name,
+      // Figure scales are named by their ratio already.
+      showRatio: !base.scale.name.startsWith('1:'),
       ratio: formatNumber(base.scale.ratio, { significant: 4, maxDecimals: 1 }),
       size: `${formatLength(base.widthMm, this.modelUnit())} × ${formatLength(base.depthMm, this.modelUnit())}`,
     })),
