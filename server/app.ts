@@ -2,15 +2,20 @@ import compression from 'compression';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { pinoHttp } from 'pino-http';
-import type { ServerConfig } from './config.js';
+import { accountRoutes } from './auth/account-routes.js';
+import { authRoutes } from './auth/auth-routes.js';
+import { readSession } from './auth/session-middleware.js';
+import type { ServerContext } from './context.js';
 import { apiNotFound, errorHandler } from './core/error-handler.js';
-import type { DatabaseHandle } from './db/database.js';
+import { sameOriginOnly } from './core/same-origin.js';
 import { healthRoutes } from './health/health-routes.js';
+import { workshopRoutes } from './workshops/workshop-routes.js';
 import { appFiles } from './web/app-files.js';
 
 export const JSON_BODY_LIMIT = '100kb';
 
-export function createApp(config: ServerConfig, database: DatabaseHandle): Express {
+export function createApp(ctx: ServerContext): Express {
+  const { config } = ctx;
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', config.trustProxy);
@@ -44,8 +49,13 @@ export function createApp(config: ServerConfig, database: DatabaseHandle): Expre
   app.use(compression());
 
   const api = express.Router();
+  api.use(sameOriginOnly(config.publicOrigin));
   api.use(express.json({ limit: JSON_BODY_LIMIT }));
-  api.use(healthRoutes(database.pool));
+  api.use(healthRoutes(ctx.pool));
+  api.use(readSession(ctx.sessions));
+  api.use(authRoutes(ctx));
+  api.use(accountRoutes(ctx));
+  api.use(workshopRoutes(ctx));
   api.use(apiNotFound);
   app.use('/api', api);
 

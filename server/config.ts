@@ -9,6 +9,12 @@ export interface ServerConfig {
   /** Folder of the production build of the app; the API runs without it. */
   appDir: string;
   trustProxy: boolean;
+  /** The address people reach the app at; links in e-mails point there. */
+  publicOrigin: string;
+  /** Session cookies are Secure when the app is served over HTTPS. */
+  secureCookies: boolean;
+  smtpUrl: string;
+  mailFrom: string;
 }
 
 const DEFAULT_DATABASE_URL = 'postgres://benchtide@127.0.0.1:54329/benchtide';
@@ -26,5 +32,9 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     logLevel: env['LOG_LEVEL'] ?? 'info',
     appDir: resolve(env['BENCHTIDE_APP_DIR'] ?? 'dist/benchtide/browser'),
     trustProxy: env['TRUST_PROXY'] === '1',
+    publicOrigin: (env['PUBLIC_ORIGIN'] ?? `http://${env['HOST'] ?? '127.0.0.1'}:${port}`).replace(/\/$/, ''),
+    secureCookies: (env['PUBLIC_ORIGIN'] ?? '').startsWith('https://'),
+    smtpUrl: env['SMTP_URL'] ?? 'smtp://127.0.0.1:2525',
+    mailFrom: env['MAIL_FROM'] ?? 'Benchtide <no-reply@benchtide.test>',
   };
 }

@@ -1,6 +1,7 @@
 import type { Server } from 'node:http';
 import { createApp } from './app.js';
 import { readConfig } from './config.js';
+import { createContext } from './context-factory.js';
 import { applyMigrations, openDatabase } from './db/database.js';
 import { pino } from 'pino';
 
@@ -16,7 +17,7 @@ try {
   process.exit(1);
 }
 
-const app = createApp(config, database);
+const app = createApp(createContext(config, database));
 const server: Server = app.listen(config.port, config.host, () => {
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.port;

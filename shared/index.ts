@@ -1,3 +1,4 @@
+export * from './account-schemas.js';
 export * from './cure.js';
 export * from './format.js';
 export * from './layers.js';
@@ -12,3 +13,4 @@ export * from './scale.js';
 export * from './schemas.js';
 export * from './units.js';
 export * from './warning.js';
+export * from './workshop-policy.js';

@@ -22,7 +22,15 @@ export const apiNotFound: RequestHandler = (req, _res, next) => {
 
 export const errorHandler: ErrorRequestHandler = (error: unknown, req, res, _next) => {
   if (error instanceof AppError) {
-    res.status(error.status).json({ error: { code: error.code, message: error.message, fields: error.fields } });
+    if (error.retryAfterMinutes !== undefined) res.setHeader('Retry-After', String(error.retryAfterMinutes * 60));
+    res.status(error.status).json({
+      error: {
+        code: error.code,
+        message: error.message,
+        fields: error.fields,
+        retryAfterMinutes: error.retryAfterMinutes,
+      },
+    });
     return;
   }
   const httpish = (error ?? {}) as HttpishError;

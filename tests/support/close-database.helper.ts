@@ -1,5 +1,7 @@
+import { closeTestMailSink } from './test-app.js';
 import { closeTestDatabase } from './test-database.js';
 
 afterAll(async () => {
   await closeTestDatabase();
+  await closeTestMailSink();
 });

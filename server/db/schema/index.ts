@@ -1,1 +1,3 @@
+export * from './auth.js';
 export * from './users.js';
+export * from './workshops.js';

@@ -1,0 +1,14 @@
+import type { z } from 'zod';
+import { AppError } from './app-error.js';
+
+/** Parses a request body with a shared schema; a bad one becomes a 400 naming each field. */
+export function validate<Schema extends z.ZodType>(schema: Schema, body: unknown): z.output<Schema> {
+  const parsed = schema.safeParse(body ?? {});
+  if (parsed.success) return parsed.data;
+  const fields: Record<string, string> = {};
+  for (const issue of parsed.error.issues) {
+    const path = issue.path.map(String).join('.') || 'body';
+    fields[path] ??= issue.message;
+  }
+  throw new AppError(400, 'invalid', 'Some values need another look.', fields);
+}
