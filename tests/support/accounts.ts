@@ -16,6 +16,8 @@ export interface TestAccount {
   cookie: string;
 }
 
+let goodPasswordHash: Promise<string> | undefined;
+
 export function uniqueEmail(who: string): string {
   return `${who.toLowerCase()}-${randomUUID().slice(0, 8)}@benchtide.test`;
 }
@@ -25,7 +27,12 @@ export async function makeAccount(ctx: ServerContext, who: string): Promise<Test
   const email = uniqueEmail(who);
   const [user] = await ctx.db
     .insert(users)
-    .values({ email, displayName: who, passwordHash: await hashPassword(GOOD_PASSWORD), emailVerifiedAt: new Date() })
+    .values({
+      email,
+      displayName: who,
+      passwordHash: await (goodPasswordHash ??= hashPassword(GOOD_PASSWORD)),
+      emailVerifiedAt: new Date(),
+    })
     .returning();
   const { cookie } = await ctx.sessions.create(user!.id);
   return { id: user!.id, email, displayName: who, password: GOOD_PASSWORD, cookie: cookie.split(';')[0]! };

@@ -1,0 +1,241 @@
+import request from 'supertest';
+import type { Role } from '../../shared/account-schemas.js';
+import { invite } from '../../server/workshops/invitation-service.js';
+import { issueToken } from '../../server/auth/tokens.js';
+import {
+  addMember,
+  GOOD_PASSWORD,
+  makeAccount,
+  makeWorkshop,
+  uniqueEmail,
+  type TestAccount,
+} from '../support/accounts.js';
+import { listRoutes } from '../support/routes.js';
+import { testServer, type TestServer } from '../support/test-app.js';
+import { linkIn } from '../../server/mail/mail-sink.js';
+
+type Caller = 'anonymous' | Role | 'outsider';
+const CALLERS: readonly Caller[] = ['anonymous', 'viewer', 'builder', 'owner', 'outsider'];
+
+/** A fresh workshop for every cell: an owner, a builder, a viewer, a spare member, an open invitation. */
+interface Fixture {
+  workshopId: string;
+  spare: TestAccount;
+  invitationId: string;
+  /** An invitation sent to the caller (or to nobody in particular for an anonymous caller). */
+  invitationTokenForCaller: string;
+  caller: TestAccount | null;
+}
+
+type Expected = Record<Caller, number>;
+interface Row {
+  route: string;
+  path: (f: Fixture) => string;
+  body?: (f: Fixture) => object;
+  expected: Expected;
+}
+
+const everyone = (status: number): Expected => ({
+  anonymous: status,
+  viewer: status,
+  builder: status,
+  owner: status,
+  outsider: status,
+});
+const signedInOnly = (status: number): Expected => ({ ...everyone(status), anonymous: 401 });
+const ownerOnly = (status: number): Expected => ({
+  anonymous: 401,
+  viewer: 403,
+  builder: 403,
+  owner: status,
+  outsider: 404,
+});
+const membersOnly = (status: number): Expected => ({
+  anonymous: 401,
+  viewer: status,
+  builder: status,
+  owner: status,
+  outsider: 404,
+});
+const bogusToken = `${'0'.repeat(32)}_${'A'.repeat(43)}`;
+
+const MATRIX: readonly Row[] = [
+  { route: 'GET /api/health', path: () => '/api/health', expected: everyone(200) },
+  {
+    route: 'POST /api/auth/sign-up',
+    path: () => '/api/auth/sign-up',
+    body: () => ({ email: uniqueEmail('new'), displayName: 'New', password: GOOD_PASSWORD }),
+    expected: everyone(202),
+  },
+  {
+    route: 'POST /api/auth/verify',
+    path: () => '/api/auth/verify',
+    body: () => ({ token: bogusToken }),
+    expected: everyone(400),
+  },
+  {
+    route: 'POST /api/auth/verify/resend',
+    path: () => '/api/auth/verify/resend',
+    body: () => ({ email: uniqueEmail('x') }),
+    expected: everyone(202),
+  },
+  {
+    route: 'POST /api/auth/sign-in',
+    path: () => '/api/auth/sign-in',
+    body: () => ({ email: uniqueEmail('nobody'), password: GOOD_PASSWORD }),
+    expected: everyone(401),
+  },
+  { route: 'POST /api/auth/sign-out', path: () => '/api/auth/sign-out', expected: everyone(204) },
+  { route: 'POST /api/auth/sign-out-others', path: () => '/api/auth/sign-out-others', expected: signedInOnly(204) },
+  {
+    route: 'POST /api/auth/forgot',
+    path: () => '/api/auth/forgot',
+    body: () => ({ email: uniqueEmail('y') }),
+    expected: everyone(202),
+  },
+  {
+    route: 'POST /api/auth/reset',
+    path: () => '/api/auth/reset',
+    body: () => ({ token: bogusToken, newPassword: 'salt marsh at low tide' }),
+    expected: everyone(400),
+  },
+  { route: 'GET /api/account', path: () => '/api/account', expected: signedInOnly(200) },
+  {
+    route: 'PATCH /api/account',
+    path: () => '/api/account',
+    body: () => ({ displayName: 'Renamed' }),
+    expected: signedInOnly(200),
+  },
+  {
+    route: 'POST /api/account/password',
+    path: () => '/api/account/password',
+    body: () => ({ currentPassword: GOOD_PASSWORD, newPassword: 'salt marsh at low tide' }),
+    expected: signedInOnly(204),
+  },
+  {
+    route: 'DELETE /api/account',
+    path: () => '/api/account',
+    body: () => ({ password: GOOD_PASSWORD }),
+    // The owner is the only owner of a workshop with others in it; the outsider owns one alone.
+    expected: { anonymous: 401, viewer: 204, builder: 204, owner: 409, outsider: 204 },
+  },
+  { route: 'GET /api/workshops', path: () => '/api/workshops', expected: signedInOnly(200) },
+  {
+    route: 'POST /api/workshops',
+    path: () => '/api/workshops',
+    body: () => ({ name: 'Another' }),
+    expected: signedInOnly(201),
+  },
+  {
+    route: 'PATCH /api/workshops/:workshopId',
+    path: (f) => `/api/workshops/${f.workshopId}`,
+    body: () => ({ name: 'Renamed workshop' }),
+    expected: ownerOnly(200),
+  },
+  {
+    route: 'GET /api/workshops/:workshopId/members',
+    path: (f) => `/api/workshops/${f.workshopId}/members`,
+    expected: membersOnly(200),
+  },
+  {
+    route: 'PATCH /api/workshops/:workshopId/members/:userId',
+    path: (f) => `/api/workshops/${f.workshopId}/members/${f.spare.id}`,
+    body: () => ({ role: 'builder' }),
+    expected: ownerOnly(200),
+  },
+  {
+    route: 'DELETE /api/workshops/:workshopId/members/:userId',
+    path: (f) => `/api/workshops/${f.workshopId}/members/${f.spare.id}`,
+    expected: ownerOnly(204),
+  },
+  {
+    route: 'GET /api/workshops/:workshopId/invitations',
+    path: (f) => `/api/workshops/${f.workshopId}/invitations`,
+    expected: ownerOnly(200),
+  },
+  {
+    route: 'POST /api/workshops/:workshopId/invitations',
+    path: (f) => `/api/workshops/${f.workshopId}/invitations`,
+    body: () => ({ email: uniqueEmail('guest'), role: 'viewer' }),
+    expected: ownerOnly(201),
+  },
+  {
+    route: 'DELETE /api/workshops/:workshopId/invitations/:invitationId',
+    path: (f) => `/api/workshops/${f.workshopId}/invitations/${f.invitationId}`,
+    expected: ownerOnly(204),
+  },
+  {
+    route: 'GET /api/invitations/:token',
+    path: (f) => `/api/invitations/${f.invitationTokenForCaller}`,
+    expected: everyone(200),
+  },
+  {
+    route: 'POST /api/invitations/:token/accept',
+    path: (f) => `/api/invitations/${f.invitationTokenForCaller}/accept`,
+    expected: signedInOnly(200),
+  },
+];
+
+describe('the authorisation matrix', () => {
+  let server: TestServer;
+
+  beforeAll(async () => {
+    server = await testServer();
+  });
+
+  async function fixture(caller: Caller): Promise<Fixture> {
+    const ctx = server.ctx;
+    const owner = await makeAccount(ctx, 'owner');
+    const workshop = await makeWorkshop(ctx, owner);
+    const spare = await makeAccount(ctx, 'spare');
+    await addMember(ctx, workshop.id, spare, 'viewer');
+    const members: Partial<Record<Caller, TestAccount>> = { owner };
+    for (const role of ['builder', 'viewer'] as const) {
+      members[role] = await makeAccount(ctx, role);
+      await addMember(ctx, workshop.id, members[role], role);
+    }
+    if (caller === 'outsider') {
+      members.outsider = await makeAccount(ctx, 'outsider');
+      await makeWorkshop(ctx, members.outsider, 'Elsewhere');
+    }
+    const callerAccount = members[caller] ?? null;
+    const invitation = await invite(ctx, owner, workshop.id, uniqueEmail('invited'), 'viewer');
+    const forCaller = await invite(ctx, owner, workshop.id, callerAccount?.email ?? uniqueEmail('anyone'), 'builder');
+    const message = await server.mail.waitFor(forCaller.email);
+    return {
+      workshopId: workshop.id,
+      spare,
+      invitationId: invitation.id,
+      invitationTokenForCaller: linkIn(message).split('/invitations/')[1]!,
+      caller: callerAccount,
+    };
+  }
+
+  it('should cover every API route the app answers', async () => {
+    const apiRoutes = listRoutes(server.app).filter((route) => route.includes(' /api/'));
+    expect(apiRoutes.filter((route) => !MATRIX.some((row) => row.route === route))).toEqual([]);
+    expect(MATRIX.filter((row) => !apiRoutes.includes(row.route)).map((row) => row.route)).toEqual([]);
+  });
+
+  for (const row of MATRIX) {
+    it(`should answer ${row.route} with ${CALLERS.map((caller) => `${caller} ${row.expected[caller]}`).join(', ')}`, async () => {
+      const actual: Partial<Expected> = {};
+      for (const caller of CALLERS) {
+        // Each cell gets an hour of its own, so rate limits never decide an answer here.
+        server.clock.advanceMinutes(61);
+        const f = await fixture(caller);
+        const [method, path] = [row.route.split(' ')[0]!.toLowerCase() as 'get', row.path(f)];
+        let call = request(server.app)[method](path);
+        if (f.caller) call = call.set('Cookie', f.caller.cookie);
+        const response = await (row.body ? call.send(row.body(f)) : call);
+        actual[caller] = response.status;
+      }
+      expect(actual).toEqual(row.expected);
+    }, 30_000);
+  }
+
+  it('should never accept a token it did not issue for an invitation', async () => {
+    const forged = issueToken('00000000-0000-0000-0000-000000000000').token;
+    await request(server.app).get(`/api/invitations/${forged}`).expect(404);
+  });
+});
