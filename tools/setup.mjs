@@ -1,6 +1,6 @@
 // Everything `npm start` and `npm test` need before they run: packages, PostgreSQL, Chromium.
 // Only Node built-ins here: this runs before `npm ci` has installed anything.
-import { spawnSync } from 'node:child_process';
+import { spawn, spawnSync } from 'node:child_process';
 import { existsSync, statSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -69,4 +69,11 @@ export async function main(action) {
     }
     throw error;
   }
+}
+
+export const MAILBOX_URL = `http://127.0.0.1:${process.env.BENCHTIDE_MAILBOX_PORT ?? 2580}`;
+
+/** The development mail sink and mailbox page, as a child process that ends with ours. */
+export function startMailSink() {
+  return spawn(process.execPath, ['--import', 'tsx', 'tools/mail-sink.ts'], { cwd: root, stdio: 'inherit' });
 }

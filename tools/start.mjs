@@ -2,7 +2,7 @@
 import { spawn } from 'node:child_process';
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
-import { main, root, runNode, setUp } from './setup.mjs';
+import { main, root, runNode, setUp, startMailSink, MAILBOX_URL } from './setup.mjs';
 
 const APP_INDEX = join(root, 'dist', 'benchtide', 'browser', 'index.html');
 const APP_SOURCES = [
@@ -36,14 +36,20 @@ await main(async () => {
     runNode(['node_modules/@angular/cli/bin/ng.js', 'build']);
   }
   const port = process.env.PORT ?? '3000';
-  console.log(`\nBenchtide: http://127.0.0.1:${port}`);
-  console.log('Demo modeller: Wren Halloway <demo@benchtide.test> (sign-in arrives with accounts)');
-  console.log('Stop with Ctrl+C; PostgreSQL keeps running until `npm run db:stop`.\n');
+  const children = [];
+  if (!process.env.SMTP_URL) children.push(startMailSink());
   const server = spawn(process.execPath, ['--import', 'tsx', 'server/main.ts'], {
     cwd: root,
     stdio: 'inherit',
     env: { ...process.env, NODE_ENV: 'production', DATABASE_URL: databaseUrl, PORT: port },
   });
-  for (const signal of ['SIGINT', 'SIGTERM']) process.on(signal, () => server.kill(signal));
-  server.on('exit', (code) => process.exit(code ?? 0));
+  children.push(server);
+  console.log(`\nBenchtide: http://127.0.0.1:${port}`);
+  if (!process.env.SMTP_URL) console.log(`Mailbox (every e-mail the app sends): ${MAILBOX_URL}`);
+  console.log('Stop with Ctrl+C; PostgreSQL keeps running until `npm run db:stop`.\n');
+  for (const signal of ['SIGINT', 'SIGTERM']) process.on(signal, () => children.forEach((child) => child.kill(signal)));
+  server.on('exit', (code) => {
+    children.forEach((child) => child.kill('SIGTERM'));
+    process.exit(code ?? 0);
+  });
 });

@@ -1,18 +1,35 @@
 import { sql } from 'drizzle-orm';
+import type { Role } from '../../shared/account-schemas.js';
+import { hashPassword } from '../auth/passwords.js';
 import type { Database } from '../db/database.js';
-import { users } from '../db/schema/index.js';
+import { memberships, users } from '../db/schema/index.js';
+import { createWorkshop } from '../workshops/workshop-service.js';
 
-/** The invented demo modeller of the invented "Fernhollow Model Railway Circle". */
-export const DEMO_MODELLER = {
-  email: 'demo@benchtide.test',
-  displayName: 'Wren Halloway',
-  workshop: 'Fernhollow Model Railway Circle',
-} as const;
+/** The invented demo club and its three invented members, one for each role. */
+export const DEMO_WORKSHOP = 'Fernhollow Model Railway Circle';
+export const DEMO_MEMBERS: readonly { email: string; displayName: string; password: string; role: Role }[] = [
+  { email: 'wren@fernhollow.test', displayName: 'Wren Halloway', password: 'fernhollow-owner', role: 'owner' },
+  { email: 'ilse@fernhollow.test', displayName: 'Ilse Marrow', password: 'fernhollow-builder', role: 'builder' },
+  { email: 'tobin@fernhollow.test', displayName: 'Tobin Reed', password: 'fernhollow-viewer', role: 'viewer' },
+];
 
 /** Fills an empty database with the demo scenario; leaves a database with any account alone. */
 export async function seedDemoWhenEmpty(db: Database): Promise<'seeded' | 'kept'> {
   const [row] = await db.select({ count: sql<number>`count(*)::int` }).from(users);
   if ((row?.count ?? 0) > 0) return 'kept';
-  await db.insert(users).values({ email: DEMO_MODELLER.email, displayName: DEMO_MODELLER.displayName });
+  const hashes = await Promise.all(DEMO_MEMBERS.map((member) => hashPassword(member.password)));
+  await db.transaction(async (tx) => {
+    const created = [];
+    for (const [index, member] of DEMO_MEMBERS.entries()) {
+      const [user] = await tx
+        .insert(users)
+        .values({ email: member.email, displayName: member.displayName, passwordHash: hashes[index]!, emailVerifiedAt: new Date() })
+        .returning();
+      await createWorkshop(tx, user!.id, `${member.displayName}'s bench`, true);
+      created.push({ userId: user!.id, role: member.role });
+    }
+    const club = await createWorkshop(tx, created[0]!.userId, DEMO_WORKSHOP);
+    await tx.insert(memberships).values(created.slice(1).map((member) => ({ workshopId: club.id, ...member })));
+  });
   return 'seeded';
 }
