@@ -73,6 +73,15 @@ export const invitationRequestSchema = z.object({ email: emailSchema, role: role
 
 export type SignUpRequest = z.input<typeof signUpRequestSchema>;
 export type SignInRequest = z.input<typeof signInRequestSchema>;
+export type ResetPasswordRequest = z.input<typeof resetPasswordRequestSchema>;
+export type ChangePasswordRequest = z.input<typeof changePasswordRequestSchema>;
+export type InvitationRequest = z.input<typeof invitationRequestSchema>;
+
+/** POST /api/auth/sign-up answers 202 with what to do next. */
+export interface SignUpAnswer {
+  readonly message: string;
+  readonly next: 'confirm-email' | 'sign-in';
+}
 
 export interface AccountView {
   readonly id: string;
@@ -84,8 +93,10 @@ export interface AccountView {
 export interface WorkshopView {
   readonly id: string;
   readonly name: string;
+  /** Every account has one personal workshop; it can be renamed and shared like any other. */
   readonly personal: boolean;
   readonly role: Role;
+  readonly memberCount: number;
 }
 
 export interface MemberView {

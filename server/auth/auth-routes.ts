@@ -10,7 +10,7 @@ import type { ServerContext } from '../context.js';
 import { validate } from '../core/validate.js';
 import { signedIn } from './session-middleware.js';
 import {
-  CHECK_YOUR_EMAIL,
+  AFTER_SIGN_UP,
   RESET_SENT,
   requestPasswordReset,
   resendVerification,
@@ -24,8 +24,8 @@ export function authRoutes(ctx: ServerContext): Router {
   const router = Router();
 
   router.post('/auth/sign-up', async (req, res) => {
-    await signUp(ctx, validate(signUpRequestSchema, req.body), req.ip ?? 'unknown');
-    res.status(202).json({ message: CHECK_YOUR_EMAIL });
+    const next = await signUp(ctx, validate(signUpRequestSchema, req.body), req.ip ?? 'unknown');
+    res.status(202).json({ message: AFTER_SIGN_UP[next], next });
   });
 
   router.post('/auth/verify', async (req, res) => {

@@ -17,7 +17,10 @@ import { createEmailToken, spendEmailToken } from './email-tokens.js';
 import { hashPassword, refuseCommonPassword, verifyAgainstDecoy, verifyPassword } from './passwords.js';
 import { LIMITS, spendAttempt } from './rate-limit.js';
 
-export const CHECK_YOUR_EMAIL = 'Thanks. Check your e-mail: we sent a link to confirm the address.';
+export const AFTER_SIGN_UP: Record<AfterSignUp, string> = {
+  'confirm-email': 'Thanks. Check your e-mail: we sent a link to confirm the address.',
+  'sign-in': 'Welcome: your account is ready and you have joined the workshop. Sign in to start.',
+};
 export const RESET_SENT = 'If an account uses this address, a link to choose a new password is on its way.';
 
 async function userByEmail(ctx: ServerContext, email: string) {
@@ -25,7 +28,14 @@ async function userByEmail(ctx: ServerContext, email: string) {
   return user;
 }
 
-export async function signUp(ctx: ServerContext, input: z.output<typeof signUpRequestSchema>, address: string) {
+/** What the person should do next: confirm by the e-mailed link, or sign in (an invitation proved the address). */
+export type AfterSignUp = 'confirm-email' | 'sign-in';
+
+export async function signUp(
+  ctx: ServerContext,
+  input: z.output<typeof signUpRequestSchema>,
+  address: string,
+): Promise<AfterSignUp> {
   await spendAttempt(ctx.db, ctx.clock, [
     { limit: LIMITS.signUpByAddress, subject: address },
     { limit: LIMITS.signUpByAccount, subject: input.email },
@@ -37,7 +47,7 @@ export async function signUp(ctx: ServerContext, input: z.output<typeof signUpRe
       ctx,
       alreadySignedUpMessage(input.email, existing.displayName, `${ctx.config.publicOrigin}/sign-in`),
     );
-    return;
+    return 'confirm-email';
   }
   // An invitation sent to this address proves it, so that account starts out confirmed.
   const invitation = input.invitationToken
@@ -60,13 +70,14 @@ export async function signUp(ctx: ServerContext, input: z.output<typeof signUpRe
   });
   if (proven) {
     await acceptInvitation(ctx, user, input.invitationToken!);
-  } else {
-    const token = await createEmailToken(ctx, user.id, 'verify-email');
-    await sendSafely(
-      ctx,
-      verifyEmailMessage(user.email, user.displayName, `${ctx.config.publicOrigin}/verify?token=${token}`),
-    );
+    return 'sign-in';
   }
+  const token = await createEmailToken(ctx, user.id, 'verify-email');
+  await sendSafely(
+    ctx,
+    verifyEmailMessage(user.email, user.displayName, `${ctx.config.publicOrigin}/verify?token=${token}`),
+  );
+  return 'confirm-email';
 }
 
 export async function verifyEmail(ctx: ServerContext, token: string): Promise<void> {

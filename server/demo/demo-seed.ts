@@ -23,7 +23,12 @@ export async function seedDemoWhenEmpty(db: Database): Promise<'seeded' | 'kept'
     for (const [index, member] of DEMO_MEMBERS.entries()) {
       const [user] = await tx
         .insert(users)
-        .values({ email: member.email, displayName: member.displayName, passwordHash: hashes[index]!, emailVerifiedAt: new Date() })
+        .values({
+          email: member.email,
+          displayName: member.displayName,
+          passwordHash: hashes[index]!,
+          emailVerifiedAt: new Date(),
+        })
         .returning();
       await createWorkshop(tx, user!.id, `${member.displayName}'s bench`, true);
       created.push({ userId: user!.id, role: member.role });

@@ -7,7 +7,7 @@ import { AppError } from '../core/app-error.js';
 import { invitations, memberships, users, workshops } from '../db/schema/index.js';
 import { invitationMessage } from '../mail/messages.js';
 import { sendSafely } from '../mail/send-safely.js';
-import { authorize } from './workshop-service.js';
+import { authorize, workshopsOf } from './workshop-service.js';
 
 const INVITATION_DAYS = 7;
 
@@ -114,7 +114,7 @@ export async function acceptInvitation(
       `This invitation was sent to ${row.invitation.email}; sign in with that address to accept it.`,
     );
   }
-  return ctx.db.transaction(async (tx) => {
+  await ctx.db.transaction(async (tx) => {
     const used = await tx
       .update(invitations)
       .set({ acceptedAt: ctx.clock.now() })
@@ -131,6 +131,6 @@ export async function acceptInvitation(
       .insert(memberships)
       .values({ workshopId: row.invitation.workshopId, userId: user.id, role })
       .onConflictDoUpdate({ target: [memberships.workshopId, memberships.userId], set: { role } });
-    return { id: row.invitation.workshopId, name: row.workshopName, personal: false, role };
   });
+  return (await workshopsOf(ctx.db, user.id)).find((workshop) => workshop.id === row.invitation.workshopId)!;
 }

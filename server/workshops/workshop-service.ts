@@ -11,7 +11,13 @@ type Queryable = Database | Transaction;
 
 export async function workshopsOf(db: Queryable, userId: string): Promise<WorkshopView[]> {
   return db
-    .select({ id: workshops.id, name: workshops.name, personal: workshops.personal, role: memberships.role })
+    .select({
+      id: workshops.id,
+      name: workshops.name,
+      personal: workshops.personal,
+      role: memberships.role,
+      memberCount: sql<number>`(SELECT count(*)::int FROM memberships m WHERE m.workshop_id = ${workshops.id})`,
+    })
     .from(memberships)
     .innerJoin(workshops, eq(workshops.id, memberships.workshopId))
     .where(eq(memberships.userId, userId))
@@ -21,7 +27,13 @@ export async function workshopsOf(db: Queryable, userId: string): Promise<Worksh
 export async function createWorkshop(db: Queryable, userId: string, name: string, personal = false) {
   const [workshop] = await db.insert(workshops).values({ name, personal }).returning();
   await db.insert(memberships).values({ workshopId: workshop!.id, userId, role: 'owner' });
-  return { id: workshop!.id, name: workshop!.name, personal: workshop!.personal, role: 'owner' as Role };
+  return {
+    id: workshop!.id,
+    name: workshop!.name,
+    personal: workshop!.personal,
+    role: 'owner' as Role,
+    memberCount: 1,
+  };
 }
 
 /** The caller's role in a workshop if the policy lets them do the action; 404 to strangers. */
@@ -43,13 +55,9 @@ export async function authorize(
 }
 
 export async function renameWorkshop(ctx: ServerContext, userId: string, workshopId: string, name: string) {
-  const role = await authorize(ctx.db, userId, workshopId, 'rename');
-  const [workshop] = await ctx.db
-    .update(workshops)
-    .set({ name, updatedAt: ctx.clock.now() })
-    .where(eq(workshops.id, workshopId))
-    .returning();
-  return { id: workshop!.id, name: workshop!.name, personal: workshop!.personal, role };
+  await authorize(ctx.db, userId, workshopId, 'rename');
+  await ctx.db.update(workshops).set({ name, updatedAt: ctx.clock.now() }).where(eq(workshops.id, workshopId));
+  return (await workshopsOf(ctx.db, userId)).find((workshop) => workshop.id === workshopId)!;
 }
 
 export async function membersOf(ctx: ServerContext, userId: string, workshopId: string): Promise<MemberView[]> {

@@ -8,7 +8,7 @@ import {
 } from '@angular/core';
 import { provideRouter, withComponentInputBinding, withInMemoryScrolling } from '@angular/router';
 import { provideServiceWorker } from '@angular/service-worker';
-import { MAT_FORM_FIELD_DEFAULT_OPTIONS } from '@angular/material/form-field';
+import { AccountSession } from './account/account-session';
 import { routes } from './app.routes';
 import { BenchIcons } from './core/bench-icons';
 
@@ -17,9 +17,11 @@ export const appConfig: ApplicationConfig = {
     provideBrowserGlobalErrorListeners(),
     provideRouter(routes, withComponentInputBinding(), withInMemoryScrolling({ scrollPositionRestoration: 'top' })),
     provideHttpClient(withFetch()),
-    // Hints and plain-language errors take the room they need instead of overflowing on a phone.
-    { provide: MAT_FORM_FIELD_DEFAULT_OPTIONS, useValue: { subscriptSizing: 'dynamic' } },
     provideAppInitializer(() => inject(BenchIcons).register()),
+    // Not awaited: the bench opens at once, signed in or not, online or not.
+    provideAppInitializer(() => {
+      void inject(AccountSession).refreshIfRemembered();
+    }),
     provideServiceWorker('ngsw-worker.js', {
       enabled: !isDevMode(),
       registrationStrategy: 'registerWhenStable:5000',

@@ -1,4 +1,5 @@
 import type { Routes } from '@angular/router';
+import { signedInGuard } from './account/signed-in-guard';
 
 export const routes: Routes = [
   { path: '', title: 'Bench · Benchtide', loadComponent: () => import('./bench/bench').then((m) => m.Bench) },
@@ -11,6 +12,48 @@ export const routes: Routes = [
     path: 'scale-tools',
     title: 'Scale tools · Benchtide',
     loadComponent: () => import('./scale-tools/scale-tools').then((m) => m.ScaleTools),
+  },
+  {
+    path: 'workshop',
+    title: 'Workshop · Benchtide',
+    canActivate: [signedInGuard],
+    loadComponent: () => import('./workshop/workshop-page').then((m) => m.WorkshopPage),
+  },
+  {
+    path: 'invitations/:token',
+    title: 'Invitation · Benchtide',
+    loadComponent: () => import('./workshop/invitation-accept').then((m) => m.InvitationAccept),
+  },
+  {
+    path: 'account',
+    title: 'Account · Benchtide',
+    canActivate: [signedInGuard],
+    loadComponent: () => import('./account/account-page').then((m) => m.AccountPage),
+  },
+  {
+    path: 'sign-in',
+    title: 'Sign in · Benchtide',
+    loadComponent: () => import('./account/sign-in').then((m) => m.SignIn),
+  },
+  {
+    path: 'sign-up',
+    title: 'Create an account · Benchtide',
+    loadComponent: () => import('./account/sign-up').then((m) => m.SignUp),
+  },
+  {
+    path: 'verify',
+    title: 'Confirm your e-mail · Benchtide',
+    loadComponent: () => import('./account/verify-email').then((m) => m.VerifyEmail),
+  },
+  {
+    path: 'forgot-password',
+    title: 'Forgot your password · Benchtide',
+    loadComponent: () => import('./account/forgot-password').then((m) => m.ForgotPassword),
+  },
+  {
+    path: 'reset-password',
+    title: 'New password · Benchtide',
+    loadComponent: () => import('./account/reset-password').then((m) => m.ResetPassword),
   },
   { path: '**', redirectTo: '' },
 ];

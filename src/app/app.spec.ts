@@ -1,19 +1,30 @@
 import { provideHttpClient } from '@angular/common/http';
+import { provideHttpClientTesting } from '@angular/common/http/testing';
 import { inject, provideAppInitializer } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
+import type { SessionView } from '@benchtide/shared';
 import { App } from './app';
 import { routes } from './app.routes';
 import { BenchIcons } from './core/bench-icons';
 import { NAVIGATION } from './core/navigation';
 
+const SESSION: SessionView = {
+  account: { id: 'u-ada', email: 'ada@example.org', displayName: 'ada Brush', emailVerified: true },
+  workshops: [],
+};
+
 describe('App', () => {
+  beforeEach(() => localStorage.clear());
+  afterEach(() => localStorage.clear());
+
   async function renderShell() {
     TestBed.configureTestingModule({
       imports: [App],
       providers: [
         provideRouter(routes),
         provideHttpClient(),
+        provideHttpClientTesting(),
         provideAppInitializer(() => inject(BenchIcons).register()),
       ],
     });
@@ -44,6 +55,26 @@ describe('App', () => {
       const fixture = await renderShell();
 
       expect(fixture.nativeElement.querySelector('.offline-chip')).toBeNull();
+    });
+  });
+
+  describe('the account entry', () => {
+    it('should offer to sign in when signed out', async () => {
+      const fixture = await renderShell();
+      const entry = fixture.nativeElement.querySelector('.account-entry') as HTMLAnchorElement;
+
+      expect(entry.textContent?.trim()).toBe('Sign in');
+      expect(entry.getAttribute('href')).toBe('/sign-in');
+    });
+
+    it('should show the initial of the signed-in name and lead to the account', async () => {
+      localStorage.setItem('benchtide.session', JSON.stringify(SESSION));
+      const fixture = await renderShell();
+      const entry = fixture.nativeElement.querySelector('.account-entry') as HTMLAnchorElement;
+
+      expect(entry.textContent?.trim()).toBe('A');
+      expect(entry.getAttribute('aria-label')).toBe('Account of ada Brush');
+      expect(entry.getAttribute('href')).toBe('/account');
     });
   });
 

@@ -1,6 +1,7 @@
-import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { AccountSession } from './account/account-session';
 import { Connectivity } from './core/connectivity';
 import { NAVIGATION } from './core/navigation';
 
@@ -13,7 +14,13 @@ import { NAVIGATION } from './core/navigation';
 })
 export class App {
   private readonly connectivity = inject(Connectivity);
+  private readonly session = inject(AccountSession);
 
   protected readonly navigation = NAVIGATION;
   protected readonly online = this.connectivity.online;
+  protected readonly account = this.session.account;
+  /** The first letter of the name, whole even when it is outside the basic plane. */
+  protected readonly initial = computed(
+    () => Array.from(this.account()?.displayName.trim() ?? '')[0]?.toUpperCase() ?? '?',
+  );
 }

@@ -148,10 +148,11 @@ describe('workshops', () => {
         .send({ email, role: 'viewer' });
       const token = invitationToken(linkIn(await server.mail.waitFor(email)));
 
-      await request(server.app)
+      const signUp = await request(server.app)
         .post('/api/auth/sign-up')
-        .send({ email, displayName: 'Eve', password: GOOD_PASSWORD, invitationToken: token })
-        .expect(202);
+        .send({ email, displayName: 'Eve', password: GOOD_PASSWORD, invitationToken: token });
+      expect(signUp.status).toBe(202);
+      expect(signUp.body.next).toBe('sign-in');
       const signIn = await request(server.app).post('/api/auth/sign-in').send({ email, password: GOOD_PASSWORD });
 
       expect(signIn.status).toBe(200);

@@ -27,6 +27,19 @@ const ICONS: Record<string, string> = {
   offline: '<path d="M7 18h10a4 4 0 0 0 .6-7.95A6 6 0 0 0 6.3 9.6 4.2 4.2 0 0 0 7 18z"/><path d="m4 4 16 16"/>',
   // an arrow to the right
   forward: '<path d="M5 12h14M13 6l6 6-6 6"/>',
+  // three people seated at one table
+  workshop:
+    '<circle cx="12" cy="6.5" r="2.5"/><circle cx="5" cy="9" r="2"/><circle cx="19" cy="9" r="2"/>' +
+    '<path d="M8 16.5v-1.5a4 4 0 0 1 8 0v1.5M2.5 16.5v-1a3 3 0 0 1 4.3-2.7M21.5 16.5v-1a3 3 0 0 0-4.3-2.7"/>' +
+    '<path d="M2 16.5h20M5 16.5v4M19 16.5v4"/>',
+  // an open eye: show what is typed
+  eye: '<path d="M2.5 12s3.5-6.5 9.5-6.5 9.5 6.5 9.5 6.5-3.5 6.5-9.5 6.5S2.5 12 2.5 12z"/><circle cx="12" cy="12" r="3"/>',
+  // the eye struck through: hide it again
+  'eye-off':
+    '<path d="M2.5 12s3.5-6.5 9.5-6.5 9.5 6.5 9.5 6.5-3.5 6.5-9.5 6.5S2.5 12 2.5 12z"/><circle cx="12" cy="12" r="3"/>' +
+    '<path d="m4 4 16 16"/>',
+  // an envelope
+  mail: '<rect x="3" y="5.5" width="18" height="13" rx="1.5"/><path d="m3.5 6.5 8.5 6.5 8.5-6.5"/>',
 };
 
 @Injectable({ providedIn: 'root' })

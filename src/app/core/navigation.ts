@@ -9,4 +9,5 @@ export const NAVIGATION: readonly NavigationEntry[] = [
   { path: '/', label: 'Bench', icon: 'bench' },
   { path: '/pour-planner', label: 'Pour planner', icon: 'pour' },
   { path: '/scale-tools', label: 'Scale tools', icon: 'scale' },
+  { path: '/workshop', label: 'Workshop', icon: 'workshop' },
 ];

@@ -22,6 +22,7 @@ import { UnitSystemToggle } from '../core/unit-system-toggle';
 import { PourPlanDraft } from './pour-plan-draft';
 import { PourPlanSheet } from './pour-plan-sheet';
 import { AREA_UNIT, convertFields, presetFields, toPlanRequest, type ShapeKind } from './pour-form';
+import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';
 
 const SHAPES: readonly { kind: ShapeKind; label: string }[] = [
   { kind: 'rectangle', label: 'Rectangle' },
@@ -36,6 +37,7 @@ function sameUnits(a: DisplayUnits, b: DisplayUnits): boolean {
 }
 
 @Component({
+  providers: [ROOMY_FORM_FIELDS],
   selector: 'bt-pour-planner',
   imports: [
     ReactiveFormsModule,

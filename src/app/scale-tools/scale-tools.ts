@@ -20,10 +20,12 @@ import { DevicePreferences } from '../core/device-preferences';
 import { UnitSystemToggle } from '../core/unit-system-toggle';
 import { FootprintComparison } from './footprint-comparison';
 import { ScalePicker } from './scale-picker';
+import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';
 
 type Side = 'real' | 'model';
 
 @Component({
+  providers: [ROOMY_FORM_FIELDS],
   selector: 'bt-scale-tools',
   imports: [
     MatCardModule,

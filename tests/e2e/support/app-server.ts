@@ -35,19 +35,21 @@ async function waitForHealth(origin: string, child: ChildProcess): Promise<void>
 }
 
 /** The real production server as its own process, serving the production build, on a free port. */
-export async function startAppServer(): Promise<RunningApp> {
+export async function startAppServer(env: Record<string, string> = {}): Promise<RunningApp> {
   const port = await freePort();
+  const origin = `http://127.0.0.1:${port}`;
   const child = spawn(process.execPath, ['--import', 'tsx', 'server/main.ts'], {
     stdio: ['ignore', 'ignore', 'inherit'],
     env: {
       ...process.env,
       NODE_ENV: 'production',
       PORT: String(port),
+      PUBLIC_ORIGIN: origin,
       DATABASE_URL: TEST_DATABASE_URL,
       LOG_LEVEL: 'warn',
+      ...env,
     },
   });
-  const origin = `http://127.0.0.1:${port}`;
   await waitForHealth(origin, child);
   return {
     origin,
