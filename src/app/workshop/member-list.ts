@@ -5,7 +5,7 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { type MatSelectChange, MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
-import { type MemberView, memberRoleRequestSchema, ROLES } from '@benchtide/shared';
+import { type MemberView, memberRoleRequestSchema, ROLES, may } from '@benchtide/shared';
 import { AccountSession } from '../account/account-session';
 import { ProblemNote } from '../core/problem-note';
 import { Submission } from '../core/submission';
@@ -29,7 +29,7 @@ export class MemberList {
   protected readonly loading = this.roster.loading;
   protected readonly loadProblem = this.roster.problem;
   protected readonly myId = computed(() => this.session.account()?.id ?? null);
-  protected readonly owner = computed(() => this.session.currentWorkshop()?.role === 'owner');
+  protected readonly owner = computed(() => may(this.session.currentWorkshop()?.role, 'manage-members'));
   protected readonly workshopName = computed(() => this.session.currentWorkshop()?.name ?? '');
   protected readonly roles = ROLES;
   protected readonly roleLabels = ROLE_LABELS;

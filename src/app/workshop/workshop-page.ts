@@ -7,7 +7,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
-import { ROLES, workshopRequestSchema } from '@benchtide/shared';
+import { ROLES, workshopRequestSchema, may } from '@benchtide/shared';
 import { AccountSession } from '../account/account-session';
 import { ProblemNote } from '../core/problem-note';
 import { fieldMessage, Submission } from '../core/submission';
@@ -51,7 +51,7 @@ export class WorkshopPage {
 
   protected readonly allWorkshops = this.session.workshops;
   protected readonly workshop = this.session.currentWorkshop;
-  protected readonly owner = computed(() => this.workshop()?.role === 'owner');
+  protected readonly owner = computed(() => may(this.workshop()?.role, 'rename'));
   protected readonly stale = this.session.stale;
   protected readonly roles = ROLES;
   protected readonly roleLabels = ROLE_LABELS;

@@ -1,3 +1,4 @@
+import { may } from '@benchtide/shared';
 import { HttpClient, HttpErrorResponse } from '@angular/common/http';
 import { Injectable, computed, inject, linkedSignal, signal } from '@angular/core';
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
@@ -28,7 +29,7 @@ export class WorkshopRoster {
   private readonly source = computed(
     () => ({
       workshopId: this.session.currentWorkshopId(),
-      owner: this.session.currentWorkshop()?.role === 'owner',
+      owner: may(this.session.currentWorkshop()?.role, 'manage-invitations'),
       reload: this.reloads(),
     }),
     { equal: (a, b) => a.workshopId === b.workshopId && a.owner === b.owner && a.reload === b.reload },
