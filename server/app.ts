@@ -9,6 +9,10 @@ import type { ServerContext } from './context.js';
 import { apiNotFound, errorHandler } from './core/error-handler.js';
 import { sameOriginOnly } from './core/same-origin.js';
 import { healthRoutes } from './health/health-routes.js';
+import { buildRoutes } from './builds/build-routes.js';
+import { costRoutes } from './costs/cost-routes.js';
+import { pourRoutes } from './pours/pour-routes.js';
+import { shelfRoutes } from './shelf/shelf-routes.js';
 import { workshopRoutes } from './workshops/workshop-routes.js';
 import { appFiles } from './web/app-files.js';
 
@@ -56,6 +60,10 @@ export function createApp(ctx: ServerContext): Express {
   api.use(authRoutes(ctx));
   api.use(accountRoutes(ctx));
   api.use(workshopRoutes(ctx));
+  api.use(buildRoutes(ctx));
+  api.use(shelfRoutes(ctx));
+  api.use(pourRoutes(ctx));
+  api.use(costRoutes(ctx));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -5,7 +5,7 @@
 import type { Role } from './account-schemas.js';
 
 export type WorkshopAction =
-  'view' | 'rename' | 'see-member-emails' | 'manage-members' | 'manage-invitations' | 'write-builds';
+  'view' | 'rename' | 'see-member-emails' | 'manage-members' | 'manage-invitations' | 'write-builds' | 'export';
 
 const ALLOWED: Readonly<Record<WorkshopAction, readonly Role[]>> = {
   view: ['owner', 'builder', 'viewer'],
@@ -14,6 +14,7 @@ const ALLOWED: Readonly<Record<WorkshopAction, readonly Role[]>> = {
   'manage-members': ['owner'],
   'manage-invitations': ['owner'],
   'write-builds': ['owner', 'builder'],
+  export: ['owner'],
 };
 
 export function may(role: Role | null | undefined, action: WorkshopAction): boolean {

@@ -1,5 +1,4 @@
 import { Router } from 'express';
-import { z } from 'zod';
 import {
   invitationRequestSchema,
   memberRoleRequestSchema,
@@ -7,7 +6,7 @@ import {
 } from '../../shared/account-schemas.js';
 import { signedIn } from '../auth/session-middleware.js';
 import type { ServerContext } from '../context.js';
-import { AppError } from '../core/app-error.js';
+import { pathId } from '../core/path-ids.js';
 import { validate } from '../core/validate.js';
 import {
   acceptInvitation,
@@ -25,13 +24,7 @@ import {
   workshopsOf,
 } from './workshop-service.js';
 
-const uuid = z.uuid();
-
-/** A path id that is not a UUID names nothing: 404, never a database error. */
-function id(value: string | undefined): string {
-  if (!uuid.safeParse(value).success) throw new AppError(404, 'not_found', 'There is nothing at this address.');
-  return value!;
-}
+const id = pathId;
 
 export function workshopRoutes(ctx: ServerContext): Router {
   const router = Router();

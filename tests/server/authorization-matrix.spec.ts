@@ -13,6 +13,9 @@ import {
 import { listRoutes } from '../support/routes.js';
 import { testServer, type TestServer } from '../support/test-app.js';
 import { linkIn } from '../../server/mail/mail-sink.js';
+import { v7 } from 'uuid';
+import { pourBody, TEST_DATA_SHEET } from '../support/shelf.js';
+import { makeRecords } from '../support/records.js';
 
 type Caller = 'anonymous' | Role | 'outsider';
 const CALLERS: readonly Caller[] = ['anonymous', 'viewer', 'builder', 'owner', 'outsider'];
@@ -22,6 +25,11 @@ interface Fixture {
   workshopId: string;
   spare: TestAccount;
   invitationId: string;
+  buildId: string;
+  stepId: string;
+  materialId: string;
+  containerId: string;
+  pourId: string;
   /** An invitation sent to the caller (or to nobody in particular for an anonymous caller). */
   invitationTokenForCaller: string;
   caller: TestAccount | null;
@@ -57,7 +65,15 @@ const membersOnly = (status: number): Expected => ({
   owner: status,
   outsider: 404,
 });
+const writers = (status: number): Expected => ({
+  anonymous: 401,
+  viewer: 403,
+  builder: status,
+  owner: status,
+  outsider: 404,
+});
 const bogusToken = `${'0'.repeat(32)}_${'A'.repeat(43)}`;
+const w = (f: Fixture) => `/api/workshops/${f.workshopId}`;
 
 const MATRIX: readonly Row[] = [
   { route: 'GET /api/health', path: () => '/api/health', expected: everyone(200) },
@@ -164,6 +180,153 @@ const MATRIX: readonly Row[] = [
     path: (f) => `/api/workshops/${f.workshopId}/invitations/${f.invitationId}`,
     expected: ownerOnly(204),
   },
+  { route: 'GET /api/workshops/:workshopId/builds', path: (f) => `${w(f)}/builds`, expected: membersOnly(200) },
+  {
+    route: 'POST /api/workshops/:workshopId/builds',
+    path: (f) => `${w(f)}/builds`,
+    body: () => ({ id: v7(), name: 'Ford', scaleRatio: 35, status: 'planning' }),
+    expected: writers(201),
+  },
+  {
+    route: 'GET /api/workshops/:workshopId/builds/:buildId',
+    path: (f) => `${w(f)}/builds/${f.buildId}`,
+    expected: membersOnly(200),
+  },
+  {
+    route: 'PATCH /api/workshops/:workshopId/builds/:buildId',
+    path: (f) => `${w(f)}/builds/${f.buildId}`,
+    body: () => ({ status: 'finished' }),
+    expected: writers(200),
+  },
+  {
+    route: 'DELETE /api/workshops/:workshopId/builds/:buildId',
+    path: (f) => `${w(f)}/builds/${f.buildId}`,
+    expected: writers(204),
+  },
+  {
+    route: 'GET /api/workshops/:workshopId/builds/:buildId/steps',
+    path: (f) => `${w(f)}/builds/${f.buildId}/steps`,
+    expected: membersOnly(200),
+  },
+  {
+    route: 'POST /api/workshops/:workshopId/steps',
+    path: (f) => `${w(f)}/steps`,
+    body: (f) => ({
+      id: v7(),
+      buildId: f.buildId,
+      kind: 'painting',
+      title: 'Riverbed',
+      happenedAt: '2026-11-02T10:00:00Z',
+    }),
+    expected: writers(201),
+  },
+  {
+    route: 'PATCH /api/workshops/:workshopId/steps/:stepId',
+    path: (f) => `${w(f)}/steps/${f.stepId}`,
+    body: () => ({ title: 'Riverbed, second coat' }),
+    expected: writers(200),
+  },
+  {
+    route: 'DELETE /api/workshops/:workshopId/steps/:stepId',
+    path: (f) => `${w(f)}/steps/${f.stepId}`,
+    expected: writers(204),
+  },
+  { route: 'GET /api/workshops/:workshopId/shelf', path: (f) => `${w(f)}/shelf`, expected: membersOnly(200) },
+  { route: 'GET /api/workshops/:workshopId/materials', path: (f) => `${w(f)}/materials`, expected: membersOnly(200) },
+  {
+    route: 'POST /api/workshops/:workshopId/materials',
+    path: (f) => `${w(f)}/materials`,
+    body: () => ({ id: v7(), name: 'Gel', kind: 'water-gel', dataSheet: TEST_DATA_SHEET }),
+    expected: writers(201),
+  },
+  {
+    route: 'GET /api/workshops/:workshopId/materials/:materialId',
+    path: (f) => `${w(f)}/materials/${f.materialId}`,
+    expected: membersOnly(200),
+  },
+  {
+    route: 'PATCH /api/workshops/:workshopId/materials/:materialId',
+    path: (f) => `${w(f)}/materials/${f.materialId}`,
+    body: () => ({ name: 'Renamed resin' }),
+    expected: writers(200),
+  },
+  {
+    route: 'DELETE /api/workshops/:workshopId/materials/:materialId',
+    path: (f) => `${w(f)}/materials/${f.materialId}`,
+    expected: writers(204),
+  },
+  {
+    route: 'POST /api/workshops/:workshopId/containers',
+    path: (f) => `${w(f)}/containers`,
+    body: (f) => ({
+      id: v7(),
+      materialId: f.materialId,
+      part: 'B',
+      sizeQty: 250,
+      unit: 'g',
+      priceMinor: 900,
+      currency: 'EUR',
+      boughtOn: '2026-10-01',
+    }),
+    expected: writers(201),
+  },
+  {
+    route: 'GET /api/workshops/:workshopId/containers/:containerId',
+    path: (f) => `${w(f)}/containers/${f.containerId}`,
+    expected: membersOnly(200),
+  },
+  {
+    route: 'PATCH /api/workshops/:workshopId/containers/:containerId',
+    path: (f) => `${w(f)}/containers/${f.containerId}`,
+    body: () => ({ lowStockQty: 50 }),
+    expected: writers(200),
+  },
+  {
+    route: 'DELETE /api/workshops/:workshopId/containers/:containerId',
+    path: (f) => `${w(f)}/containers/${f.containerId}`,
+    expected: writers(204),
+  },
+  {
+    route: 'POST /api/workshops/:workshopId/containers/:containerId/waste',
+    path: (f) => `${w(f)}/containers/${f.containerId}/waste`,
+    body: () => ({ id: v7(), quantity: 2 }),
+    expected: writers(201),
+  },
+  {
+    route: 'POST /api/workshops/:workshopId/containers/:containerId/stocktake',
+    path: (f) => `${w(f)}/containers/${f.containerId}/stocktake`,
+    body: () => ({ id: v7(), countedQty: 300 }),
+    expected: writers(201),
+  },
+  {
+    route: 'GET /api/workshops/:workshopId/builds/:buildId/pours',
+    path: (f) => `${w(f)}/builds/${f.buildId}/pours`,
+    expected: membersOnly(200),
+  },
+  {
+    route: 'POST /api/workshops/:workshopId/pours',
+    path: (f) => `${w(f)}/pours`,
+    body: (f) => ({ ...pourBody(f.buildId, f.materialId), whenShort: 'record-shortfall' }),
+    expected: writers(201),
+  },
+  {
+    route: 'GET /api/workshops/:workshopId/pours/:pourId',
+    path: (f) => `${w(f)}/pours/${f.pourId}`,
+    expected: membersOnly(200),
+  },
+  {
+    route: 'DELETE /api/workshops/:workshopId/pours/:pourId',
+    path: (f) => `${w(f)}/pours/${f.pourId}`,
+    expected: writers(204),
+  },
+  { route: 'GET /api/workshops/:workshopId/costs', path: (f) => `${w(f)}/costs`, expected: membersOnly(200) },
+  { route: 'GET /api/workshops/:workshopId/costs.csv', path: (f) => `${w(f)}/costs.csv`, expected: membersOnly(200) },
+  { route: 'GET /api/workshops/:workshopId/export.json', path: (f) => `${w(f)}/export.json`, expected: ownerOnly(200) },
+  {
+    route: 'GET /api/workshops/:workshopId/export/:table.csv',
+    path: (f) => `${w(f)}/export/pours.csv`,
+    expected: ownerOnly(200),
+  },
   {
     route: 'GET /api/invitations/:token',
     path: (f) => `/api/invitations/${f.invitationTokenForCaller}`,
@@ -183,7 +346,7 @@ describe('the authorisation matrix', () => {
     server = await testServer();
   });
 
-  async function fixture(caller: Caller): Promise<Fixture> {
+  async function fixture(caller: Caller, needsInvitation: boolean): Promise<Fixture> {
     const ctx = server.ctx;
     const owner = await makeAccount(ctx, 'owner');
     const workshop = await makeWorkshop(ctx, owner);
@@ -200,14 +363,19 @@ describe('the authorisation matrix', () => {
     }
     const callerAccount = members[caller] ?? null;
     const invitation = await invite(ctx, owner, workshop.id, uniqueEmail('invited'), 'viewer');
-    const forCaller = await invite(ctx, owner, workshop.id, callerAccount?.email ?? uniqueEmail('anyone'), 'builder');
-    const message = await server.mail.waitFor(forCaller.email);
+    let invitationTokenForCaller = bogusToken;
+    if (needsInvitation) {
+      const forCaller = await invite(ctx, owner, workshop.id, callerAccount?.email ?? uniqueEmail('anyone'), 'builder');
+      invitationTokenForCaller = linkIn(await server.mail.waitFor(forCaller.email)).split('/invitations/')[1]!;
+    }
+    const records = await makeRecords(ctx, owner, workshop.id);
     return {
       workshopId: workshop.id,
       spare,
       invitationId: invitation.id,
-      invitationTokenForCaller: linkIn(message).split('/invitations/')[1]!,
+      invitationTokenForCaller,
       caller: callerAccount,
+      ...records,
     };
   }
 
@@ -223,7 +391,7 @@ describe('the authorisation matrix', () => {
       for (const caller of CALLERS) {
         // Each cell gets an hour of its own, so rate limits never decide an answer here.
         server.clock.advanceMinutes(61);
-        const f = await fixture(caller);
+        const f = await fixture(caller, row.route.includes(':token'));
         const [method, path] = [row.route.split(' ')[0]!.toLowerCase() as 'get', row.path(f)];
         let call = request(server.app)[method](path);
         if (f.caller) call = call.set('Cookie', f.caller.cookie);

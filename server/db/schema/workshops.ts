@@ -1,4 +1,4 @@
-import { boolean, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { bigint, boolean, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { ROLES } from '../../../shared/account-schemas.js';
 import { users } from './users.js';
 
@@ -7,6 +7,11 @@ export const workshops = pgTable('workshops', {
   name: text('name').notNull(),
   /** The workshop every new account gets for its own builds. */
   personal: boolean('personal').notNull().default(false),
+  /**
+   * Bumped under this row's lock by every write to the workshop's records, so change numbers
+   * are handed out in commit order and a reader pulling by cursor never skips one.
+   */
+  changeCounter: bigint('change_counter', { mode: 'number' }).notNull().default(0),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
 });

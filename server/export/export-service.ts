@@ -1,0 +1,64 @@
+import { stringify } from 'csv-stringify/sync';
+import { eq } from 'drizzle-orm';
+import type { ServerContext } from '../context.js';
+import { AppError } from '../core/app-error.js';
+import { builds, buildSteps, containers, ledgerEntries, materials, pours, workshops } from '../db/schema/index.js';
+import { authorize } from '../workshops/workshop-service.js';
+
+/** The tables a workshop's record is made of, by the name they carry in an export. */
+export const EXPORT_TABLES = {
+  builds,
+  steps: buildSteps,
+  materials,
+  containers,
+  ledger: ledgerEntries,
+  pours,
+} as const;
+export type ExportTable = keyof typeof EXPORT_TABLES;
+
+async function rowsOf(ctx: ServerContext, workshopId: string, name: ExportTable) {
+  const table = EXPORT_TABLES[name];
+  return ctx.db.select().from(table).where(eq(table.workshopId, workshopId)).orderBy(table.changeNumber);
+}
+
+/** Everything the workshop recorded, tombstones included, for a backup or for leaving. Owners only. */
+export async function exportJson(ctx: ServerContext, userId: string, workshopId: string) {
+  await authorize(ctx.db, userId, workshopId, 'export');
+  const [workshop] = await ctx.db.select().from(workshops).where(eq(workshops.id, workshopId));
+  const tables: Record<string, unknown[]> = {};
+  for (const name of Object.keys(EXPORT_TABLES) as ExportTable[]) tables[name] = await rowsOf(ctx, workshopId, name);
+  return {
+    format: 'benchtide-workshop-export',
+    version: 1,
+    exportedAt: ctx.clock.now().toISOString(),
+    workshop,
+    tables,
+  };
+}
+
+export async function exportCsv(ctx: ServerContext, userId: string, workshopId: string, name: string): Promise<string> {
+  await authorize(ctx.db, userId, workshopId, 'export');
+  if (!(name in EXPORT_TABLES)) {
+    throw new AppError(
+      404,
+      'not_found',
+      `There is no table "${name}"; choose one of ${Object.keys(EXPORT_TABLES).join(', ')}.`,
+    );
+  }
+  const rows = await rowsOf(ctx, workshopId, name as ExportTable);
+  const columns = Object.keys(EXPORT_TABLES[name as ExportTable]).filter(
+    (key) => !key.startsWith('_') && key !== 'enableRLS',
+  );
+  const cell = (value: unknown) =>
+    value === null || value === undefined
+      ? ''
+      : value instanceof Date
+        ? value.toISOString()
+        : typeof value === 'object'
+          ? JSON.stringify(value)
+          : String(value);
+  return stringify(
+    rows.map((row) => columns.map((column) => cell((row as Record<string, unknown>)[column]))),
+    { header: true, columns },
+  );
+}

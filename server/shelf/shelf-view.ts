@@ -1,0 +1,92 @@
+import { addDays, differenceInCalendarDays, formatISO, parseISO } from 'date-fns';
+import { and, eq, isNull, sql } from 'drizzle-orm';
+import type { ServerContext } from '../context.js';
+import { containers, ledgerEntries, materials } from '../db/schema/index.js';
+import { authorize } from '../workshops/workshop-service.js';
+
+/** Days before a use-by date that the shelf starts to say so. */
+export const USE_BY_WARNING_DAYS = 30;
+
+export interface ContainerOnShelf {
+  id: string;
+  part: 'A' | 'B' | 'single';
+  unit: 'g' | 'mL';
+  sizeQty: number;
+  remainingQty: number;
+  priceMinor: number;
+  currency: string;
+  boughtOn: string;
+  openedOn: string | null;
+  /** The earlier of the printed use-by and the shelf life counted from opening. */
+  useBy: string | null;
+  lowStock: boolean;
+  useBySoon: boolean;
+  expired: boolean;
+  lot: string | null;
+}
+
+/** Every live material with its containers and what is left in each, in one query. */
+export async function shelfOf(ctx: ServerContext, userId: string, workshopId: string) {
+  await authorize(ctx.db, userId, workshopId, 'view');
+  const remaining = ctx.db
+    .select({ containerId: ledgerEntries.containerId, qty: sql<string>`sum(${ledgerEntries.quantity})`.as('qty') })
+    .from(ledgerEntries)
+    .where(and(eq(ledgerEntries.workshopId, workshopId), isNull(ledgerEntries.deletedAt)))
+    .groupBy(ledgerEntries.containerId)
+    .as('remaining');
+  const rows = await ctx.db
+    .select({ material: materials, container: containers, qty: remaining.qty })
+    .from(materials)
+    .leftJoin(containers, and(eq(containers.materialId, materials.id), isNull(containers.deletedAt)))
+    .leftJoin(remaining, eq(remaining.containerId, containers.id))
+    .where(and(eq(materials.workshopId, workshopId), isNull(materials.deletedAt)))
+    .orderBy(materials.name, containers.boughtOn);
+  const today = ctx.clock.now();
+  const shelf = new Map<string, { material: typeof materials.$inferSelect; containers: ContainerOnShelf[] }>();
+  for (const row of rows) {
+    const entry = shelf.get(row.material.id) ?? { material: row.material, containers: [] };
+    shelf.set(row.material.id, entry);
+    if (!row.container) continue;
+    const remainingQty = Number(row.qty ?? 0);
+    const useBy = effectiveUseBy(row.container.useBy, row.container.openedOn, row.material.shelfLifeOpenedDays);
+    const daysLeft = useBy === null ? null : differenceInCalendarDays(parseISO(useBy), today);
+    entry.containers.push({
+      id: row.container.id,
+      part: row.container.part,
+      unit: row.container.unit,
+      sizeQty: row.container.sizeQty,
+      remainingQty,
+      priceMinor: row.container.priceMinor,
+      currency: row.container.currency,
+      boughtOn: row.container.boughtOn,
+      openedOn: row.container.openedOn,
+      useBy,
+      lowStock: row.container.lowStockQty !== null && remainingQty <= row.container.lowStockQty,
+      useBySoon: daysLeft !== null && daysLeft >= 0 && daysLeft <= USE_BY_WARNING_DAYS,
+      expired: daysLeft !== null && daysLeft < 0,
+      lot: row.container.lot,
+    });
+  }
+  return [...shelf.values()].map(({ material, containers: held }) => ({
+    ...material,
+    containers: held,
+    remainingByUnit: {
+      g: held.filter((c) => c.unit === 'g').reduce((sum, c) => sum + c.remainingQty, 0),
+      mL: held.filter((c) => c.unit === 'mL').reduce((sum, c) => sum + c.remainingQty, 0),
+    },
+  }));
+}
+
+function effectiveUseBy(
+  printed: string | null,
+  openedOn: string | null,
+  shelfLifeOpenedDays: number | null,
+): string | null {
+  const afterOpening =
+    openedOn !== null && shelfLifeOpenedDays !== null
+      ? formatISO(addDays(parseISO(openedOn), shelfLifeOpenedDays), { representation: 'date' })
+      : null;
+  if (printed === null) return afterOpening;
+  if (afterOpening === null) return printed;
+  return printed < afterOpening ? printed : afterOpening;
+}

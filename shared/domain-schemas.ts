@@ -1,0 +1,133 @@
+/**
+ * The records of the craft as forms, the API and sync exchange them: builds, their log of steps,
+ * materials and the containers (lots) on the shelf, and pours. Ids are made on the device that
+ * creates a record (UUID v7), so the same record can be written offline and synced later.
+ */
+import { z } from 'zod';
+import { materialDataSheetSchema, pourShapeSchema } from './schemas.js';
+
+const id = (label: string) => z.uuid({ error: `${label} must be an id made by the app` });
+const text = (label: string, max: number) =>
+  z
+    .string({ error: `${label} must be text` })
+    .trim()
+    .max(max, { error: `${label} must be at most ${max} characters` });
+const requiredText = (label: string, max: number) => text(label, max).min(1, { error: `${label} is required` });
+const positive = (label: string, unit: string) =>
+  z
+    .number({ error: `${label} must be a number` })
+    .gt(0, { error: `${label} must be more than 0${unit ? ` ${unit}` : ''}` });
+const instant = (label: string) => z.iso.datetime({ offset: true, error: `${label} must be a date and time` });
+const day = (label: string) => z.iso.date({ error: `${label} must be a date (YYYY-MM-DD)` });
+
+export const BUILD_STATUSES = ['planning', 'building', 'finished'] as const;
+export const STEP_KINDS = ['base-and-terrain', 'painting', 'water-pour', 'detailing', 'other'] as const;
+export const MATERIAL_KINDS = ['two-part-epoxy', 'single-part-medium', 'water-gel', 'other'] as const;
+export const CONTAINER_PARTS = ['A', 'B', 'single'] as const;
+export const STOCK_UNITS = ['g', 'mL'] as const;
+
+const buildFields = {
+  name: requiredText('Name', 120),
+  scaleRatio: positive('Scale', ''),
+  /** The standard scale chosen, if any (shared/scale.ts ids); absent for a custom ratio. */
+  scaleId: text('Scale', 40).optional(),
+  baseWidthMm: positive('Base width', 'mm').optional(),
+  baseDepthMm: positive('Base depth', 'mm').optional(),
+  realWidthMm: positive('Real width', 'mm').optional(),
+  realDepthMm: positive('Real depth', 'mm').optional(),
+  status: z.enum(BUILD_STATUSES, { error: 'Status must be planning, building or finished' }),
+  notes: text('Notes', 10_000),
+};
+export const newBuildSchema = z.object({ id: id('Build'), ...buildFields, notes: buildFields.notes.default('') });
+export const buildPatchSchema = z.object(buildFields).partial();
+
+const stepFields = {
+  kind: z.enum(STEP_KINDS, { error: 'Choose what kind of step this is' }),
+  title: requiredText('Title', 200),
+  notes: text('Notes', 10_000),
+  happenedAt: instant('When'),
+};
+export const newStepSchema = z.object({
+  id: id('Step'),
+  buildId: id('Build'),
+  ...stepFields,
+  notes: stepFields.notes.default(''),
+});
+export const stepPatchSchema = z.object(stepFields).partial();
+
+const materialFields = {
+  name: requiredText('Name', 120),
+  kind: z.enum(MATERIAL_KINDS, { error: 'Choose the kind of material' }),
+  dataSheet: materialDataSheetSchema,
+  shelfLifeOpenedDays: z
+    .int({ error: 'Shelf life once opened must be a whole number of days' })
+    .positive({ error: 'Shelf life once opened must be more than 0 days' })
+    .optional(),
+  /** A link to the maker's safety data sheet, or where the paper copy is. */
+  safetySheet: text('Safety data sheet', 500).default(''),
+};
+export const newMaterialSchema = z.object({ id: id('Material'), ...materialFields });
+export const materialPatchSchema = z.object(materialFields).partial();
+
+const containerFields = {
+  materialId: id('Material'),
+  part: z.enum(CONTAINER_PARTS, { error: 'Part must be A, B or single' }),
+  sizeQty: positive('Size', ''),
+  unit: z.enum(STOCK_UNITS, { error: 'Unit must be g or mL' }),
+  priceMinor: z.int({ error: 'Price must be a whole number of cents' }).min(0, { error: 'Price must be 0 or more' }),
+  currency: z.string().regex(/^[A-Z]{3}$/, { error: 'Currency must be a three-letter code such as EUR' }),
+  boughtOn: day('Bought on'),
+  openedOn: day('Opened on').optional(),
+  useBy: day('Use by').optional(),
+  lowStockQty: z
+    .number({ error: 'Low-stock level must be a number' })
+    .min(0, { error: 'Low-stock level must be 0 or more' })
+    .optional(),
+  lot: text('Lot', 80).optional(),
+};
+export const newContainerSchema = z.object({ id: id('Container'), ...containerFields });
+export const containerPatchSchema = z
+  .object(containerFields)
+  .omit({ materialId: true, sizeQty: true, unit: true })
+  .partial();
+
+export const wasteSchema = z.object({
+  id: id('Entry'),
+  quantity: positive('Amount', ''),
+  note: text('Note', 500).default(''),
+});
+export const stocktakeSchema = z.object({
+  id: id('Entry'),
+  countedQty: z
+    .number({ error: 'Counted amount must be a number' })
+    .min(0, { error: 'Counted amount must be 0 or more' }),
+});
+
+export const newPourSchema = z.object({
+  id: id('Pour'),
+  buildId: id('Build'),
+  stepId: id('Step').optional(),
+  materialId: id('Material'),
+  shape: pourShapeSchema,
+  depthMm: positive('Depth', 'mm'),
+  displacedMl: z.number().min(0, { error: 'Displaced volume must be 0 mL or more' }).default(0),
+  wastePercent: z
+    .number()
+    .min(0, { error: 'Waste allowance must be 0 % or more' })
+    .max(100, { error: 'Waste allowance must be at most 100 %' })
+    .default(0),
+  roomTempC: z.number({ error: 'Room temperature must be a number' }).min(-30).max(60),
+  startAt: instant('Start'),
+  scaleResolutionG: positive('Scale resolution', 'g').default(0.1),
+  /** Draw from these containers, in this order; otherwise oldest first. */
+  containerIds: z.array(id('Container')).max(20).optional(),
+  /** When the shelf holds less than the pour needs: refuse, or record the rest as from a bottle not on the shelf. */
+  whenShort: z.enum(['refuse', 'record-shortfall'], { error: 'Choose refuse or record-shortfall' }).default('refuse'),
+  note: text('Note', 2000).default(''),
+});
+
+export type NewBuild = z.input<typeof newBuildSchema>;
+export type NewStep = z.input<typeof newStepSchema>;
+export type NewMaterial = z.input<typeof newMaterialSchema>;
+export type NewContainer = z.input<typeof newContainerSchema>;
+export type NewPour = z.input<typeof newPourSchema>;

@@ -1,0 +1,64 @@
+import { v7 } from 'uuid';
+import { createBuild, createStep } from '../../server/builds/build-service.js';
+import type { ServerContext } from '../../server/context.js';
+import { createPour } from '../../server/pours/pour-service.js';
+import { createContainer, createMaterial } from '../../server/shelf/shelf-service.js';
+import type { TestAccount } from './accounts.js';
+import { TEST_DATA_SHEET } from './shelf.js';
+
+/** One of each record in a workshop, made through the services: a build with a step, a material, its two parts, a pour. */
+export async function makeRecords(ctx: ServerContext, owner: TestAccount, workshopId: string) {
+  const [buildId, stepId, materialId, containerId, partBId, pourId] = [v7(), v7(), v7(), v7(), v7(), v7()];
+  await createBuild(ctx, owner.id, workshopId, {
+    id: buildId,
+    name: 'Mill race',
+    scaleRatio: 87.1,
+    status: 'building',
+    notes: '',
+  });
+  await createStep(ctx, owner.id, workshopId, {
+    id: stepId,
+    buildId,
+    kind: 'water-pour',
+    title: 'First layer',
+    notes: '',
+    happenedAt: '2026-11-01T10:00:00Z',
+  });
+  await createMaterial(ctx, owner.id, workshopId, {
+    id: materialId,
+    name: 'Test resin',
+    kind: 'two-part-epoxy',
+    dataSheet: { ...TEST_DATA_SHEET, mixRatio: { ...TEST_DATA_SHEET.mixRatio } },
+    safetySheet: '',
+  });
+  for (const [id, part] of [
+    [containerId, 'A'],
+    [partBId, 'B'],
+  ] as const) {
+    await createContainer(ctx, owner.id, workshopId, {
+      id,
+      materialId,
+      part,
+      sizeQty: 500,
+      unit: 'g',
+      priceMinor: 2500,
+      currency: 'EUR',
+      boughtOn: '2026-10-01',
+    });
+  }
+  await createPour(ctx, owner.id, workshopId, {
+    id: pourId,
+    buildId,
+    materialId,
+    shape: { kind: 'rectangle', lengthMm: 100, widthMm: 50 },
+    depthMm: 4,
+    displacedMl: 0,
+    wastePercent: 0,
+    roomTempC: 20,
+    startAt: '2026-11-20T18:00:00Z',
+    scaleResolutionG: 0.1,
+    whenShort: 'refuse',
+    note: '',
+  });
+  return { buildId, stepId, materialId, containerId, pourId };
+}
