@@ -9,6 +9,7 @@ import type { ServerContext } from './context.js';
 import { apiNotFound, errorHandler } from './core/error-handler.js';
 import { sameOriginOnly } from './core/same-origin.js';
 import { healthRoutes } from './health/health-routes.js';
+import { openApiRoutes } from './openapi/openapi-routes.js';
 import { buildRoutes } from './builds/build-routes.js';
 import { costRoutes } from './costs/cost-routes.js';
 import { pourRoutes } from './pours/pour-routes.js';
@@ -56,6 +57,7 @@ export function createApp(ctx: ServerContext): Express {
   api.use(sameOriginOnly(config.publicOrigin));
   api.use(express.json({ limit: JSON_BODY_LIMIT }));
   api.use(healthRoutes(ctx.pool));
+  api.use(openApiRoutes());
   api.use(readSession(ctx.sessions));
   api.use(authRoutes(ctx));
   api.use(accountRoutes(ctx));

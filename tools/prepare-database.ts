@@ -1,14 +1,17 @@
 // Brings the database up to date and seeds the demo scenario when it is empty.
 import { readConfig } from '../server/config.js';
+import { createContext } from '../server/context-factory.js';
 import { applyMigrations, openDatabase } from '../server/db/database.js';
 import { eq } from 'drizzle-orm';
 import { users } from '../server/db/schema/index.js';
 import { DEMO_MEMBERS, DEMO_WORKSHOP, seedDemoWhenEmpty } from '../server/demo/demo-seed.js';
 
-const { db, pool } = openDatabase(readConfig().databaseUrl);
+const config = readConfig();
+const database = openDatabase(config.databaseUrl);
+const { db, pool } = database;
 try {
   await applyMigrations(db);
-  const outcome = await seedDemoWhenEmpty(db);
+  const outcome = await seedDemoWhenEmpty(createContext(config, database));
   console.log(
     outcome === 'seeded'
       ? `[database] migrated; seeded the demo workshop "${DEMO_WORKSHOP}"`

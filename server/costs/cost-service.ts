@@ -1,6 +1,6 @@
 import { and, eq, isNull, sql } from 'drizzle-orm';
 import type { ServerContext } from '../context.js';
-import { builds, containers, ledgerEntries, materials, pours } from '../db/schema/index.js';
+import { builds, costTotals, materials } from '../db/schema/index.js';
 import { authorize } from '../workshops/workshop-service.js';
 
 /** One line of the cost report: money in integer minor units of one currency. */
@@ -22,67 +22,47 @@ export interface CostReport {
   total: CostLine[];
 }
 
+const NO_BUILD = '00000000-0000-0000-0000-000000000000';
+
 /**
- * Sums of the cost fixed on each ledger entry when it was written; currencies are never added
- * together. Plain grouped sums over indexed columns, so the report stays quick with many pours.
+ * Sums of the cost fixed on each ledger entry when it was written, read from the running totals
+ * the database keeps per build, material and month; currencies are never added together.
  */
 export async function costReport(ctx: ServerContext, userId: string, workshopId: string): Promise<CostReport> {
   await authorize(ctx.db, userId, workshopId, 'view');
-  const spent = and(
-    eq(ledgerEntries.workshopId, workshopId),
-    isNull(ledgerEntries.deletedAt),
-    sql`${ledgerEntries.kind} IN ('pour-use', 'waste')`,
-  );
-  const cost = sql<string>`sum(${ledgerEntries.costMinor})`;
-  const line = (row: { key: string | null; label: string | null; currency: string; cost: string }): CostLine => ({
-    key: row.key ?? '',
-    label: row.label ?? '',
-    currency: row.currency,
-    costMinor: Number(row.cost),
-  });
+  const rows = await ctx.db
+    .select({
+      buildId: costTotals.buildId,
+      buildName: builds.name,
+      materialId: costTotals.materialId,
+      materialName: materials.name,
+      month: sql<string>`to_char(${costTotals.month}, 'YYYY-MM')`,
+      currency: costTotals.currency,
+      costMinor: costTotals.costMinor,
+    })
+    .from(costTotals)
+    .leftJoin(builds, and(eq(builds.id, costTotals.buildId), isNull(builds.deletedAt)))
+    .innerJoin(materials, eq(materials.id, costTotals.materialId))
+    .where(and(eq(costTotals.workshopId, workshopId), sql`${costTotals.costMinor} <> 0`));
 
-  const [byBuild, byMaterial, byMonth, total] = await Promise.all([
-    ctx.db
-      .select({ key: builds.id, label: builds.name, currency: containers.currency, cost })
-      .from(ledgerEntries)
-      .innerJoin(pours, eq(pours.id, ledgerEntries.pourId))
-      .innerJoin(builds, eq(builds.id, pours.buildId))
-      .innerJoin(containers, eq(containers.id, ledgerEntries.containerId))
-      .where(and(spent, eq(ledgerEntries.kind, 'pour-use'), isNull(builds.deletedAt)))
-      .groupBy(builds.id, builds.name, containers.currency)
-      .orderBy(builds.name),
-    ctx.db
-      .select({ key: materials.id, label: materials.name, currency: containers.currency, cost })
-      .from(ledgerEntries)
-      .innerJoin(containers, eq(containers.id, ledgerEntries.containerId))
-      .innerJoin(materials, eq(materials.id, containers.materialId))
-      .where(spent)
-      .groupBy(materials.id, materials.name, containers.currency)
-      .orderBy(materials.name),
-    ctx.db
-      .select({
-        key: sql<string>`to_char(${ledgerEntries.at} AT TIME ZONE 'UTC', 'YYYY-MM')`,
-        label: sql<string>`to_char(${ledgerEntries.at} AT TIME ZONE 'UTC', 'YYYY-MM')`,
-        currency: containers.currency,
-        cost,
-      })
-      .from(ledgerEntries)
-      .innerJoin(containers, eq(containers.id, ledgerEntries.containerId))
-      .where(spent)
-      .groupBy(sql`1`, sql`2`, containers.currency)
-      .orderBy(sql`1`),
-    ctx.db
-      .select({ key: containers.currency, label: containers.currency, currency: containers.currency, cost })
-      .from(ledgerEntries)
-      .innerJoin(containers, eq(containers.id, ledgerEntries.containerId))
-      .where(spent)
-      .groupBy(containers.currency),
-  ]);
+  const group = (keyOf: (row: (typeof rows)[number]) => [string, string] | null): CostLine[] => {
+    const lines = new Map<string, CostLine>();
+    for (const row of rows) {
+      const keyed = keyOf(row);
+      if (!keyed) continue;
+      const [key, label] = keyed;
+      const line = lines.get(`${key}|${row.currency}`) ?? { key, label, currency: row.currency, costMinor: 0 };
+      line.costMinor += row.costMinor;
+      lines.set(`${key}|${row.currency}`, line);
+    }
+    return [...lines.values()].filter((line) => line.costMinor !== 0).sort((a, b) => a.label.localeCompare(b.label));
+  };
   return {
-    byBuild: byBuild.map(line),
-    byMaterial: byMaterial.map(line),
-    byMonth: byMonth.map(line),
-    total: total.map(line),
+    // Waste (no build) and uses of builds since deleted count for materials and months, not for a build.
+    byBuild: group((row) => (row.buildId !== NO_BUILD && row.buildName !== null ? [row.buildId, row.buildName] : null)),
+    byMaterial: group((row) => [row.materialId, row.materialName]),
+    byMonth: group((row) => [row.month, row.month]),
+    total: group((row) => [row.currency, row.currency]),
   };
 }
 

@@ -1,9 +1,10 @@
 import { sql } from 'drizzle-orm';
 import type { Role } from '../../shared/account-schemas.js';
 import { hashPassword } from '../auth/passwords.js';
-import type { Database } from '../db/database.js';
+import type { ServerContext } from '../context.js';
 import { memberships, users } from '../db/schema/index.js';
 import { createWorkshop } from '../workshops/workshop-service.js';
+import { seedDemoBench } from './demo-records.js';
 
 /** The invented demo club and its three invented members, one for each role. */
 export const DEMO_WORKSHOP = 'Fernhollow Model Railway Circle';
@@ -14,11 +15,12 @@ export const DEMO_MEMBERS: readonly { email: string; displayName: string; passwo
 ];
 
 /** Fills an empty database with the demo scenario; leaves a database with any account alone. */
-export async function seedDemoWhenEmpty(db: Database): Promise<'seeded' | 'kept'> {
+export async function seedDemoWhenEmpty(ctx: ServerContext): Promise<'seeded' | 'kept'> {
+  const { db } = ctx;
   const [row] = await db.select({ count: sql<number>`count(*)::int` }).from(users);
   if ((row?.count ?? 0) > 0) return 'kept';
   const hashes = await Promise.all(DEMO_MEMBERS.map((member) => hashPassword(member.password)));
-  await db.transaction(async (tx) => {
+  const club = await db.transaction(async (tx) => {
     const created = [];
     for (const [index, member] of DEMO_MEMBERS.entries()) {
       const [user] = await tx
@@ -33,8 +35,10 @@ export async function seedDemoWhenEmpty(db: Database): Promise<'seeded' | 'kept'
       await createWorkshop(tx, user!.id, `${member.displayName}'s bench`, true);
       created.push({ userId: user!.id, role: member.role });
     }
-    const club = await createWorkshop(tx, created[0]!.userId, DEMO_WORKSHOP);
-    await tx.insert(memberships).values(created.slice(1).map((member) => ({ workshopId: club.id, ...member })));
+    const workshop = await createWorkshop(tx, created[0]!.userId, DEMO_WORKSHOP);
+    await tx.insert(memberships).values(created.slice(1).map((member) => ({ workshopId: workshop.id, ...member })));
+    return { id: workshop.id, ownerId: created[0]!.userId, builderId: created[1]!.userId };
   });
+  await seedDemoBench(ctx, club.ownerId, club.builderId, club.id);
   return 'seeded';
 }

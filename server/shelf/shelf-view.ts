@@ -1,7 +1,7 @@
 import { addDays, differenceInCalendarDays, formatISO, parseISO } from 'date-fns';
-import { and, eq, isNull, sql } from 'drizzle-orm';
+import { and, eq, isNull } from 'drizzle-orm';
 import type { ServerContext } from '../context.js';
-import { containers, ledgerEntries, materials } from '../db/schema/index.js';
+import { containers, containerStock, materials } from '../db/schema/index.js';
 import { authorize } from '../workshops/workshop-service.js';
 
 /** Days before a use-by date that the shelf starts to say so. */
@@ -25,20 +25,14 @@ export interface ContainerOnShelf {
   lot: string | null;
 }
 
-/** Every live material with its containers and what is left in each, in one query. */
+/** Every live material with its containers and what is left in each (the ledger's running sums), in one query. */
 export async function shelfOf(ctx: ServerContext, userId: string, workshopId: string) {
   await authorize(ctx.db, userId, workshopId, 'view');
-  const remaining = ctx.db
-    .select({ containerId: ledgerEntries.containerId, qty: sql<string>`sum(${ledgerEntries.quantity})`.as('qty') })
-    .from(ledgerEntries)
-    .where(and(eq(ledgerEntries.workshopId, workshopId), isNull(ledgerEntries.deletedAt)))
-    .groupBy(ledgerEntries.containerId)
-    .as('remaining');
   const rows = await ctx.db
-    .select({ material: materials, container: containers, qty: remaining.qty })
+    .select({ material: materials, container: containers, qty: containerStock.remaining })
     .from(materials)
     .leftJoin(containers, and(eq(containers.materialId, materials.id), isNull(containers.deletedAt)))
-    .leftJoin(remaining, eq(remaining.containerId, containers.id))
+    .leftJoin(containerStock, eq(containerStock.containerId, containers.id))
     .where(and(eq(materials.workshopId, workshopId), isNull(materials.deletedAt)))
     .orderBy(materials.name, containers.boughtOn);
   const today = ctx.clock.now();

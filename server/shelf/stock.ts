@@ -1,18 +1,20 @@
-import { and, eq, inArray, isNull, sql } from 'drizzle-orm';
+import { and, eq, inArray, isNull } from 'drizzle-orm';
 import type { Database } from '../db/database.js';
-import { containers, ledgerEntries } from '../db/schema/index.js';
+import { containers, containerStock } from '../db/schema/index.js';
 import type { Transaction } from '../records/change-stamp.js';
 
 type Queryable = Database | Transaction;
 
-/** Remaining stock of each container: the sum of its live ledger entries, in the container's unit. */
+/**
+ * Remaining stock of each container, in the container's unit: the sum of its live ledger entries,
+ * as the database keeps it running (container_stock).
+ */
 export async function remainingOf(db: Queryable, containerIds: readonly string[]): Promise<Map<string, number>> {
   if (containerIds.length === 0) return new Map();
   const rows = await db
-    .select({ containerId: ledgerEntries.containerId, remaining: sql<string>`sum(${ledgerEntries.quantity})` })
-    .from(ledgerEntries)
-    .where(and(inArray(ledgerEntries.containerId, [...containerIds]), isNull(ledgerEntries.deletedAt)))
-    .groupBy(ledgerEntries.containerId);
+    .select({ containerId: containerStock.containerId, remaining: containerStock.remaining })
+    .from(containerStock)
+    .where(inArray(containerStock.containerId, [...containerIds]));
   return new Map(rows.map((row) => [row.containerId, Number(row.remaining)]));
 }
 

@@ -77,6 +77,8 @@ const w = (f: Fixture) => `/api/workshops/${f.workshopId}`;
 
 const MATRIX: readonly Row[] = [
   { route: 'GET /api/health', path: () => '/api/health', expected: everyone(200) },
+  { route: 'GET /api/openapi.json', path: () => '/api/openapi.json', expected: everyone(200) },
+  { route: 'GET /api/reference', path: () => '/api/reference', expected: everyone(200) },
   {
     route: 'POST /api/auth/sign-up',
     path: () => '/api/auth/sign-up',

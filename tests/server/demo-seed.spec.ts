@@ -17,7 +17,7 @@ describe('the demo workshop seed', () => {
     url.pathname = `/${name}`;
     seeded = openDatabase(url.toString());
     await applyMigrations(seeded.db);
-    firstOutcome = await seedDemoWhenEmpty(seeded.db);
+    firstOutcome = await seedDemoWhenEmpty((await testServer({}, seeded)).ctx);
   }, 30_000);
 
   afterAll(async () => {
@@ -28,7 +28,7 @@ describe('the demo workshop seed', () => {
 
   it('should seed an empty database once, and keep a database that has accounts', async () => {
     expect(firstOutcome).toBe('seeded');
-    expect(await seedDemoWhenEmpty(seeded.db)).toBe('kept');
+    expect(await seedDemoWhenEmpty((await testServer({}, seeded)).ctx)).toBe('kept');
   });
 
   it('should let each README sign-in in with its role in the demo workshop', async () => {
@@ -42,5 +42,23 @@ describe('the demo workshop seed', () => {
         .withContext(member.email)
         .toContain(jasmine.objectContaining({ name: DEMO_WORKSHOP, role: member.role }));
     }
+  });
+
+  it('should give the demo club builds at three scales, a shelf and costed pours', async () => {
+    const { app } = await testServer({}, seeded);
+    const owner = DEMO_MEMBERS[0]!;
+    const signIn = await request(app).post('/api/auth/sign-in').send({ email: owner.email, password: owner.password });
+    const cookie = ([] as string[]).concat(signIn.headers['set-cookie'] ?? [])[0]!.split(';')[0]!;
+    const club = (signIn.body.workshops as { id: string; name: string }[]).find((w) => w.name === DEMO_WORKSHOP)!;
+    const get = (path: string) => request(app).get(`/api/workshops/${club.id}${path}`).set('Cookie', cookie);
+
+    const builds = (await get('/builds')).body as { scaleRatio: number }[];
+    const shelf = (await get('/shelf')).body as unknown[];
+    const costs = (await get('/costs')).body as { byBuild: { costMinor: number }[] };
+
+    expect(builds.map((build) => build.scaleRatio).sort((a, b) => a - b)).toEqual([35, 87.1, 160]);
+    expect(shelf.length).toBe(3);
+    expect(costs.byBuild.length).toBe(2);
+    expect(costs.byBuild.every((line) => line.costMinor > 0)).toBeTrue();
   });
 });

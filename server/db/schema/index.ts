@@ -4,3 +4,4 @@ export * from './pours.js';
 export * from './shelf.js';
 export * from './users.js';
 export * from './workshops.js';
+export * from './rollups.js';
