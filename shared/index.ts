@@ -12,6 +12,7 @@ export * from './rounding.js';
 export * from './safety.js';
 export * from './scale.js';
 export * from './schemas.js';
+export * from './sync-schemas.js';
 export * from './units.js';
 export * from './warning.js';
 export * from './workshop-policy.js';
