@@ -14,6 +14,7 @@ import { buildRoutes } from './builds/build-routes.js';
 import { costRoutes } from './costs/cost-routes.js';
 import { pourRoutes } from './pours/pour-routes.js';
 import { shelfRoutes } from './shelf/shelf-routes.js';
+import { syncRoutes } from './sync/sync-routes.js';
 import { workshopRoutes } from './workshops/workshop-routes.js';
 import { appFiles } from './web/app-files.js';
 
@@ -66,6 +67,7 @@ export function createApp(ctx: ServerContext): Express {
   api.use(shelfRoutes(ctx));
   api.use(pourRoutes(ctx));
   api.use(costRoutes(ctx));
+  api.use(syncRoutes(ctx));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -7,11 +7,13 @@ import { z } from 'zod';
 import { materialDataSheetSchema, pourShapeSchema } from './schemas.js';
 
 const id = (label: string) => z.uuid({ error: `${label} must be an id made by the app` });
+// A NUL character cannot be stored as text; refusing it here keeps it from failing a whole sync batch.
 const text = (label: string, max: number) =>
   z
     .string({ error: `${label} must be text` })
     .trim()
-    .max(max, { error: `${label} must be at most ${max} characters` });
+    .max(max, { error: `${label} must be at most ${max} characters` })
+    .refine((value) => !value.includes('\u0000'), { error: `${label} contains a character that cannot be stored` });
 const requiredText = (label: string, max: number) => text(label, max).min(1, { error: `${label} is required` });
 const positive = (label: string, unit: string) =>
   z

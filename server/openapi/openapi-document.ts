@@ -34,6 +34,7 @@ import {
   stocktakeSchema,
   wasteSchema,
 } from '../../shared/domain-schemas.js';
+import { pullQuerySchema, pushRequestSchema } from '../../shared/sync-schemas.js';
 import { may, type WorkshopAction } from '../../shared/workshop-policy.js';
 import { SESSION_COOKIE } from '../auth/lucia-session-store.js';
 import { EXPORT_TABLES } from '../export/export-service.js';
@@ -66,6 +67,11 @@ const TAGS = [
   },
   { name: 'Pours', description: 'What was mixed and poured for a build, drawn from the containers on the shelf.' },
   { name: 'Costs and export', description: "What builds cost, and a workshop's records to keep or take elsewhere." },
+  {
+    name: 'Sync',
+    description:
+      'How a device sends the changes it made offline, and fetches what changed elsewhere since it last looked.',
+  },
 ] as const;
 type Tag = (typeof TAGS)[number]['name'];
 
@@ -83,6 +89,8 @@ interface ApiRoute {
   readonly accessNote?: string;
   /** The shared schema the route validates its body with. */
   readonly body?: z.ZodType;
+  /** The shared schema the route validates its query string with. */
+  readonly query?: z.ZodObject;
   readonly success: { readonly status: number; readonly description: string; readonly media?: MediaType };
   /** Refusals particular to this route, on top of those every route of its kind can give. */
   readonly refusals?: Readonly<Record<number, string>>;
@@ -115,6 +123,7 @@ const BODY_NAMES = new Map<z.ZodType, string>([
   [wasteSchema, 'Waste'],
   [stocktakeSchema, 'Stocktake'],
   [newPourSchema, 'NewPour'],
+  [pushRequestSchema, 'PushRequest'],
 ]);
 
 const recordId = (what: string) => z.uuid().meta({ description: what });
@@ -704,6 +713,35 @@ const API_ROUTES: readonly ApiRoute[] = [
     success: { status: 200, description: 'The table as CSV, as a download.', media: 'text/csv' },
     refusals: { 404: `There is no such table; choose one of ${Object.keys(EXPORT_TABLES).join(', ')}.` },
   },
+  {
+    method: 'post',
+    path: '/api/sync/push',
+    tag: 'Sync',
+    summary: "Send a device's waiting changes, oldest first",
+    access: 'view',
+    accessNote: "Each change is then checked on its own: a viewer's writes are answered as rejected.",
+    body: pushRequestSchema,
+    success: {
+      status: 200,
+      description:
+        'One answer per change, in order: applied with its change number, or rejected with the reason. A change sent again answers as the first time.',
+    },
+    refusals: { 503: 'Nothing was saved this time (code try_again); send the same changes again later.' },
+  },
+  {
+    method: 'get',
+    path: '/api/sync/pull',
+    tag: 'Sync',
+    summary: 'Fetch what changed in a workshop after a cursor',
+    access: 'signed-in',
+    query: pullQuerySchema,
+    success: {
+      status: 200,
+      description:
+        'A page of changed records (tombstones included) with the next cursor, or startOver when the device must copy everything again.',
+    },
+    refusals: { 503: 'Nothing could be read this time (code try_again); ask again later.' },
+  },
 ];
 
 /** Every error the API sends has this shape (ApiErrorBody in shared/account-schemas.ts). */
@@ -779,6 +817,7 @@ function operation(route: ApiRoute, named: Map<z.ZodType, z.ZodType>, apiError: 
     [ACCESS_EXTENSION]: access,
     request: {
       ...(params ? { params } : {}),
+      ...(route.query ? { query: route.query } : {}),
       ...(body ? { body: { required: true, content: { 'application/json': { schema: body } } } } : {}),
     },
     responses,

@@ -330,6 +330,22 @@ const MATRIX: readonly Row[] = [
     expected: ownerOnly(200),
   },
   {
+    route: 'POST /api/sync/push',
+    path: () => '/api/sync/push',
+    body: (f) => ({
+      workshopId: f.workshopId,
+      mutations: [{ type: 'build.delete', mutationId: v7(), recordId: f.buildId }],
+    }),
+    // Members get answers (a viewer's write answered as rejected); strangers get nothing.
+    expected: membersOnly(200),
+  },
+  {
+    route: 'GET /api/sync/pull',
+    path: (f) => `/api/sync/pull?workshopId=${f.workshopId}&after=0`,
+    // A stranger is told to start over: nothing of the workshop is in the answer.
+    expected: signedInOnly(200),
+  },
+  {
     route: 'GET /api/invitations/:token',
     path: (f) => `/api/invitations/${f.invitationTokenForCaller}`,
     expected: everyone(200),

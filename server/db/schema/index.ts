@@ -5,3 +5,4 @@ export * from './shelf.js';
 export * from './users.js';
 export * from './workshops.js';
 export * from './rollups.js';
+export * from './sync.js';
