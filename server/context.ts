@@ -1,4 +1,5 @@
 import type { Logger } from 'pino';
+import type { Role } from '../shared/account-schemas.js';
 import type pg from 'pg';
 import type { SessionStore } from './auth/session-store.js';
 import type { ServerConfig } from './config.js';
@@ -15,4 +16,10 @@ export interface ServerContext {
   clock: Clock;
   sessions: SessionStore;
   log: Logger;
+  /**
+   * Set while a sync push applies a batch: the caller's role, checked once, and the change
+   * number the whole batch shares (it commits as one). Writes then run in the batch's
+   * transaction instead of opening their own.
+   */
+  batch?: { role: Role; changeNumber: number };
 }

@@ -2,6 +2,7 @@ import { and, asc, eq, isNull, type SQL } from 'drizzle-orm';
 import type { PgColumn, PgTable } from 'drizzle-orm/pg-core';
 import type { ServerContext } from '../context.js';
 import { AppError } from '../core/app-error.js';
+import { may } from '../../shared/workshop-policy.js';
 import { authorize } from '../workshops/workshop-service.js';
 import { stampChange, type Transaction } from './change-stamp.js';
 
@@ -70,6 +71,12 @@ export async function writeRecords<T>(
   workshopId: string,
   write: (tx: Transaction, changeNumber: number) => Promise<T>,
 ): Promise<T> {
+  if (ctx.batch) {
+    if (!may(ctx.batch.role, 'write-builds')) {
+      throw new AppError(403, 'forbidden', `As a ${ctx.batch.role} of this workshop you may not do this.`);
+    }
+    return write(ctx.db as unknown as Transaction, ctx.batch.changeNumber);
+  }
   await authorize(ctx.db, userId, workshopId, 'write-builds');
   return ctx.db.transaction(async (tx) => write(tx, await stampChange(tx, workshopId)));
 }

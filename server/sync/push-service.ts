@@ -1,10 +1,12 @@
-import { eq, inArray } from 'drizzle-orm';
+import { inArray } from 'drizzle-orm';
 import { z } from 'zod';
+import type { Role } from '../../shared/account-schemas.js';
 import { mutationSchema, type MutationResult, type PushAnswer } from '../../shared/sync-schemas.js';
 import type { ServerContext } from '../context.js';
 import { AppError } from '../core/app-error.js';
 import type { Database } from '../db/database.js';
-import { pushedMutations, workshops } from '../db/schema/index.js';
+import { pushedMutations } from '../db/schema/index.js';
+import { stampChange } from '../records/change-stamp.js';
 import { authorize } from '../workshops/workshop-service.js';
 import { applyMutation } from './apply-mutation.js';
 
@@ -41,8 +43,36 @@ export async function push(
   workshopId: string,
   raw: readonly unknown[],
 ): Promise<PushAnswer> {
-  await authorize(ctx.db, userId, workshopId, 'view');
+  const role = await authorize(ctx.db, userId, workshopId, 'view');
+  try {
+    return await applyBatch(ctx, role, userId, workshopId, raw, false);
+  } catch (error) {
+    if (!(error instanceof RefusalInBatch)) throw error;
+    // Someone's change is refused: do the batch again with each change in a savepoint of its own.
+    return applyBatch(ctx, role, userId, workshopId, raw, true);
+  }
+}
+
+/** Thrown on the quick path, where a refusal rolls the whole batch back to be done again with savepoints. */
+class RefusalInBatch extends Error {}
+
+/**
+ * Savepoints cost round trips, so a batch is first applied without them; only when a change is
+ * refused is it applied again with one savepoint per change.
+ */
+async function applyBatch(
+  ctx: ServerContext,
+  role: Role,
+  userId: string,
+  workshopId: string,
+  raw: readonly unknown[],
+  isolate: boolean,
+): Promise<PushAnswer> {
   return ctx.db.transaction(async (tx) => {
+    // One change number for the batch (it commits as one), taken when the first change is applied,
+    // so a batch of replays changes nothing at all. The workshop stays locked until the commit.
+    let batchCtx: ServerContext | null = null;
+    const recorded: (typeof pushedMutations.$inferInsert)[] = [];
     const ids = raw
       .map((item) => idOnly.safeParse(item).data?.mutationId)
       .filter((id): id is string => id !== undefined);
@@ -62,37 +92,46 @@ export async function push(
         results.push(known);
         continue;
       }
-      const result = await applyOne(ctx, tx as unknown as Database, userId, workshopId, mutationId, item);
-      await tx.insert(pushedMutations).values({ mutationId, workshopId, userId, result });
+      batchCtx ??= {
+        ...ctx,
+        db: tx as unknown as Database,
+        batch: { role, changeNumber: await stampChange(tx, workshopId) },
+      };
+      const result = await applyOne(batchCtx, userId, workshopId, mutationId, item, isolate);
+      recorded.push({ mutationId, workshopId, userId, result });
       answered.set(mutationId, result);
       results.push(result);
     }
+    if (recorded.length > 0) await tx.insert(pushedMutations).values(recorded);
     return { results };
   });
 }
 
 async function applyOne(
   ctx: ServerContext,
-  tx: Database,
   userId: string,
   workshopId: string,
   mutationId: string,
   item: unknown,
+  isolate: boolean,
 ): Promise<MutationResult> {
   const parsed = mutationSchema.safeParse(item);
   if (!parsed.success) return rejection(mutationId, refusedShape(item));
   try {
-    // A savepoint: a refused mutation leaves no trace, and the batch goes on.
-    await tx.transaction((savepoint) =>
-      applyMutation({ ...ctx, db: savepoint as unknown as Database }, userId, workshopId, parsed.data),
-    );
+    if (isolate) {
+      // A savepoint: a refused mutation leaves no trace, and the batch goes on.
+      await ctx.db.transaction((savepoint) =>
+        applyMutation({ ...ctx, db: savepoint as unknown as Database }, userId, workshopId, parsed.data),
+      );
+    } else {
+      await applyMutation(ctx, userId, workshopId, parsed.data);
+    }
   } catch (error) {
-    if (error instanceof AppError && error.status < 500) return rejection(mutationId, error);
+    if (error instanceof AppError && error.status < 500) {
+      if (!isolate) throw new RefusalInBatch();
+      return rejection(mutationId, error);
+    }
     throw error;
   }
-  const [workshop] = await tx
-    .select({ changeNumber: workshops.changeCounter })
-    .from(workshops)
-    .where(eq(workshops.id, workshopId));
-  return { mutationId, status: 'applied', changeNumber: workshop!.changeNumber };
+  return { mutationId, status: 'applied', changeNumber: ctx.batch!.changeNumber };
 }

@@ -78,6 +78,9 @@ describe('sync', () => {
     ]);
     expect(answer.body.results[1].reason.code).toBe('not_found');
     expect(answer.body.results[2].reason.fields).toEqual({ 'data.name': 'Name is required' });
+    // The quick first attempt, rolled back when the refusal showed up, left nothing behind.
+    const { changes } = await pullAll(owner);
+    expect(changes.filter((change) => change.record['name'] === 'Behind them').length).toBe(1);
   });
 
   it("should answer a viewer's write as rejected", async () => {
