@@ -3,6 +3,7 @@ import { provideHttpClientTesting } from '@angular/common/http/testing';
 import { inject, provideAppInitializer } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
+import { provideServiceWorker } from '@angular/service-worker';
 import type { SessionView } from '@benchtide/shared';
 import { App } from './app';
 import { routes } from './app.routes';
@@ -22,6 +23,7 @@ describe('App', () => {
     TestBed.configureTestingModule({
       imports: [App],
       providers: [
+        provideServiceWorker('ngsw-worker.js', { enabled: false }),
         provideRouter(routes),
         provideHttpClient(),
         provideHttpClientTesting(),

@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/c
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { AccountSession } from './account/account-session';
+import { AppUpdates } from './core/app-updates';
 import { Connectivity } from './core/connectivity';
 import { NAVIGATION } from './core/navigation';
 
@@ -14,6 +15,7 @@ import { NAVIGATION } from './core/navigation';
 })
 export class App {
   private readonly connectivity = inject(Connectivity);
+  protected readonly updates = inject(AppUpdates);
   private readonly session = inject(AccountSession);
 
   protected readonly navigation = NAVIGATION;

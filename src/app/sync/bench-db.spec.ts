@@ -1,0 +1,115 @@
+import Dexie from 'dexie';
+import { v7 } from 'uuid';
+import { BenchDb, SCHEMA_V1 } from './bench-db';
+import type { LocalBuild, OutboxRow } from './synced-records';
+import { dropDatabase } from './sync-testing';
+
+const WORKSHOP = v7();
+
+const NOW = '2025-03-01T09:00:00.000Z';
+
+function build(id: string): LocalBuild {
+  const now = NOW;
+  return {
+    id,
+    workshopId: WORKSHOP,
+    createdAt: now,
+    updatedAt: now,
+    deletedAt: null,
+    changeNumber: 0,
+    pending: true,
+    name: 'Harbour diorama',
+    scaleRatio: 87,
+    status: 'planning',
+    notes: '',
+  };
+}
+
+function queued(recordId: string): Omit<OutboxRow, 'seq'> {
+  return {
+    mutationId: v7(),
+    workshopId: WORKSHOP,
+    mutation: { type: 'build.delete', mutationId: v7(), recordId },
+    queuedAt: NOW,
+    attempts: 0,
+    state: 'waiting',
+    undo: [],
+  };
+}
+
+describe('BenchDb', () => {
+  let name: string;
+  let db: BenchDb;
+
+  beforeEach(() => {
+    name = `bench-db-spec-${v7()}`;
+    db = new BenchDb(name);
+  });
+  afterEach(async () => {
+    await dropDatabase(db);
+  });
+
+  describe('transactions', () => {
+    it('should keep neither the record nor its outbox row when the transaction fails after writing both', async () => {
+      const id = v7();
+
+      const written = db.transaction('rw', [db.builds, db.outbox], async () => {
+        await db.builds.add(build(id));
+        await db.outbox.add(queued(id));
+        throw new Error('The device ran out of space');
+      });
+
+      await expectAsync(written).toBeRejectedWithError('The device ran out of space');
+      expect(await db.builds.get(id)).toBeUndefined();
+      expect(await db.outbox.count()).toBe(0);
+    });
+
+    it('should keep both when the transaction completes', async () => {
+      const id = v7();
+
+      await db.transaction('rw', [db.builds, db.outbox], async () => {
+        await db.builds.add(build(id));
+        await db.outbox.add(queued(id));
+      });
+
+      expect(await db.builds.get(id)).toEqual(build(id));
+      expect(await db.outbox.count()).toBe(1);
+    });
+
+    it('should refuse to queue the same mutation id twice', async () => {
+      const row = queued(v7());
+      await db.outbox.add(row);
+
+      await expectAsync(db.outbox.add({ ...row })).toBeRejectedWith(
+        jasmine.objectContaining({ name: 'ConstraintError' }),
+      );
+      expect(await db.outbox.count()).toBe(1);
+    });
+  });
+
+  describe('upgrading from version 1', () => {
+    it('should mark outbox rows written by version 1 as waiting, with nothing to undo', async () => {
+      const old = new Dexie(name);
+      old.version(1).stores(SCHEMA_V1);
+      const { state: _state, undo: _undo, ...v1Row } = queued(v7());
+      const seq = await old.table('outbox').add(v1Row);
+      old.close();
+
+      const upgraded = await db.outbox.get(seq as number);
+
+      expect(db.verno).toBe(2);
+      expect(upgraded).toEqual({ ...v1Row, seq: seq as number, state: 'waiting', undo: [] });
+      expect(await db.outbox.where('[workshopId+state]').equals([WORKSHOP, 'waiting']).count()).toBe(1);
+    });
+
+    it('should keep the records version 1 stored', async () => {
+      const old = new Dexie(name);
+      old.version(1).stores(SCHEMA_V1);
+      const id = v7();
+      await old.table('builds').add(build(id));
+      old.close();
+
+      expect(await db.builds.get(id)).toEqual(build(id));
+    });
+  });
+});

@@ -1,0 +1,72 @@
+import { inject, Injectable, InjectionToken } from '@angular/core';
+import Dexie, { type EntityTable, type Table } from 'dexie';
+import {
+  SYNCED_TABLES,
+  type LocalBuild,
+  type LocalContainer,
+  type LocalLedgerEntry,
+  type LocalMaterial,
+  type LocalPour,
+  type LocalStep,
+  type OutboxRow,
+  type SyncedFields,
+  type SyncStateRow,
+} from './synced-records';
+
+/** The IndexedDB database name; specs give each run its own. */
+export const BENCH_DB_NAME = new InjectionToken<string>('BENCH_DB_NAME', {
+  providedIn: 'root',
+  factory: () => 'benchtide',
+});
+
+/** The first schema, kept so that devices holding it are upgraded: its outbox rows had no state. */
+export const SCHEMA_V1 = {
+  builds: 'id, workshopId, changeNumber',
+  steps: 'id, workshopId, buildId, changeNumber',
+  materials: 'id, workshopId, changeNumber',
+  containers: 'id, workshopId, materialId, changeNumber',
+  ledgerEntries: 'id, workshopId, containerId, pourId, changeNumber',
+  pours: 'id, workshopId, buildId, materialId, changeNumber',
+  outbox: '++seq, workshopId',
+  syncState: 'workshopId',
+} as const;
+
+const SCHEMA_V2 = {
+  ...SCHEMA_V1,
+  // A mutation id is queued once; rows are found by workshop and state, oldest (lowest seq) first.
+  outbox: '++seq, workshopId, state, [workshopId+state], &mutationId',
+};
+
+/** The records of every workshop this device has opened, the changes not yet pushed, and where each pull stopped. */
+@Injectable({ providedIn: 'root', useFactory: () => new BenchDb(inject(BENCH_DB_NAME)) })
+export class BenchDb extends Dexie {
+  declare readonly builds: EntityTable<LocalBuild, 'id'>;
+  declare readonly steps: EntityTable<LocalStep, 'id'>;
+  declare readonly materials: EntityTable<LocalMaterial, 'id'>;
+  declare readonly containers: EntityTable<LocalContainer, 'id'>;
+  declare readonly ledgerEntries: EntityTable<LocalLedgerEntry, 'id'>;
+  declare readonly pours: EntityTable<LocalPour, 'id'>;
+  declare readonly outbox: EntityTable<OutboxRow, 'seq'>;
+  declare readonly syncState: EntityTable<SyncStateRow, 'workshopId'>;
+
+  constructor(name = 'benchtide') {
+    super(name);
+    this.version(1).stores(SCHEMA_V1);
+    this.version(2)
+      .stores(SCHEMA_V2)
+      .upgrade((tx) =>
+        tx
+          .table<Partial<OutboxRow>>('outbox')
+          .toCollection()
+          .modify((row) => {
+            row.state ??= 'waiting';
+            row.undo ??= [];
+          }),
+      );
+  }
+
+  /** The six tables of synced records, for transactions and loops over all of them. */
+  get syncedTables(): Table<SyncedFields, string>[] {
+    return SYNCED_TABLES.map((name) => this.table<SyncedFields, string>(name));
+  }
+}

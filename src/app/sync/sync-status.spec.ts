@@ -1,0 +1,132 @@
+import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
+import { provideHttpClient } from '@angular/common/http';
+import { signal } from '@angular/core';
+import { TestBed, type ComponentFixture } from '@angular/core/testing';
+import { MatIconHarness } from '@angular/material/icon/testing';
+import { BenchIcons } from '../core/bench-icons';
+import { SyncEngine } from './sync-engine';
+import { SyncStatus } from './sync-status';
+import type { OutboxRow } from './synced-records';
+
+/** The engine's signals, set by each spec. */
+class EngineSignals {
+  readonly online = signal(true);
+  readonly syncing = signal(false);
+  readonly waitingCount = signal(0);
+  readonly rejected = signal<OutboxRow[]>([]);
+  readonly sessionEnded = signal(false);
+  readonly lastSyncedAt = signal<string | null>(null);
+  readonly syncNow = jasmine.createSpy('syncNow').and.resolveTo();
+}
+
+const REJECTED = { seq: 4, state: 'rejected', reason: { code: 'forbidden', message: 'Viewers cannot add builds.' } };
+
+describe('SyncStatus', () => {
+  let engine: EngineSignals;
+  let fixture: ComponentFixture<SyncStatus>;
+
+  beforeEach(() => {
+    engine = new EngineSignals();
+    TestBed.configureTestingModule({
+      imports: [SyncStatus],
+      providers: [provideHttpClient(), { provide: SyncEngine, useValue: engine }],
+    });
+    TestBed.inject(BenchIcons).register();
+    fixture = TestBed.createComponent(SyncStatus);
+  });
+
+  async function shown(): Promise<{ label: string; icon: string | null; attention: boolean }> {
+    await fixture.whenStable();
+    const chip = fixture.nativeElement.querySelector('button') as HTMLButtonElement;
+    const icon = await TestbedHarnessEnvironment.loader(fixture).getHarness(MatIconHarness);
+    return {
+      label: chip.querySelector('.label')?.textContent?.trim() ?? '',
+      icon: await icon.getName(),
+      attention: chip.classList.contains('attention'),
+    };
+  }
+
+  describe('what it says', () => {
+    it('should say Synced, with a tick, when nothing is waiting', async () => {
+      expect(await shown()).toEqual({ label: 'Synced', icon: 'done', attention: false });
+    });
+
+    it('should count the changes waiting to be sent', async () => {
+      engine.waitingCount.set(3);
+
+      expect(await shown()).toEqual({ label: '3 waiting', icon: 'timer', attention: false });
+    });
+
+    it('should say it is offline, and how much is waiting', async () => {
+      engine.online.set(false);
+      engine.waitingCount.set(2);
+
+      expect(await shown()).toEqual({ label: 'Offline · 2 waiting', icon: 'offline', attention: false });
+
+      engine.waitingCount.set(0);
+      expect((await shown()).label).toBe('Offline');
+    });
+
+    it('should ask for attention when the server refused a change, even offline', async () => {
+      engine.online.set(false);
+      engine.waitingCount.set(1);
+      engine.rejected.set([REJECTED as OutboxRow]);
+
+      expect(await shown()).toEqual({ label: 'Needs attention', icon: 'caution', attention: true });
+    });
+
+    it('should ask for attention when the session has ended', async () => {
+      engine.sessionEnded.set(true);
+
+      expect(await shown()).toEqual({ label: 'Needs attention', icon: 'caution', attention: true });
+    });
+  });
+
+  describe('for screen readers', () => {
+    function description(): string {
+      const chip = fixture.nativeElement.querySelector('button') as HTMLButtonElement;
+      const id = chip.getAttribute('aria-describedby') ?? '';
+      return fixture.nativeElement.querySelector(`[id="${id}"]`)?.textContent ?? '';
+    }
+
+    it('should announce a change of status politely', async () => {
+      await fixture.whenStable();
+
+      expect(fixture.nativeElement.querySelector('.label').getAttribute('aria-live')).toBe('polite');
+    });
+
+    it('should tell when it last synced, and why it needs attention', async () => {
+      engine.lastSyncedAt.set(new Date(2025, 2, 1, 14, 5).toISOString());
+      engine.sessionEnded.set(true);
+      engine.rejected.set([REJECTED as OutboxRow, { ...REJECTED, seq: 5 } as OutboxRow]);
+      await fixture.whenStable();
+
+      expect(description()).toBe(
+        'Sign in again to send the changes waiting on this device. 2 changes could not be saved. ' +
+          'Last synced at 14:05, 1 Mar. Select to sync now.',
+      );
+    });
+
+    it('should say when this device has not synced yet', async () => {
+      await fixture.whenStable();
+
+      expect(description()).toBe('Not synced yet on this device. Select to sync now.');
+    });
+  });
+
+  it('should be at least 48 px high, to be easy to tap', async () => {
+    await fixture.whenStable();
+
+    const chip = fixture.nativeElement.querySelector('button') as HTMLButtonElement;
+    expect(chip.getBoundingClientRect().height).toBeGreaterThanOrEqual(48);
+    expect(chip.getBoundingClientRect().width).toBeGreaterThanOrEqual(48);
+  });
+
+  it('should sync now when selected', async () => {
+    await fixture.whenStable();
+
+    (fixture.nativeElement.querySelector('button') as HTMLButtonElement).click();
+
+    expect(engine.syncNow).toHaveBeenCalledTimes(1);
+  });
+});

@@ -1,0 +1,118 @@
+import type {
+  ContainerPart,
+  LedgerKind,
+  Mutation,
+  MutationResult,
+  newBuildSchema,
+  newContainerSchema,
+  newMaterialSchema,
+  newPourSchema,
+  newStepSchema,
+  PourPlan,
+  PourPlanRequest,
+  SyncedEntity,
+} from '@benchtide/shared';
+import type { z } from 'zod';
+
+/**
+ * The records as this device keeps them: the server's rows as JSON (times as ISO strings, absent values as
+ * null), or the device's own copy of a change it has not yet had back from the server.
+ */
+export interface SyncedFields {
+  id: string;
+  workshopId: string;
+  createdAt: string;
+  updatedAt: string;
+  /** Set when deleted here and not yet confirmed; a pulled tombstone removes the record. */
+  deletedAt: string | null;
+  /** The workshop change number of the server's copy; 0 while the server has not seen the record. */
+  changeNumber: number;
+  /** Changed on this device since the server's copy last arrived. */
+  pending?: boolean;
+}
+
+/** Optional fields may also be null: that is how the server sends a value that is not there. */
+type Stored<T> = { [K in keyof T]: undefined extends T[K] ? T[K] | null : T[K] };
+type Fields<T extends z.ZodType> = Stored<Omit<z.output<T>, 'id'>>;
+
+export type LocalBuild = SyncedFields & Fields<typeof newBuildSchema> & { createdBy?: string | null };
+export type LocalStep = SyncedFields & Fields<typeof newStepSchema> & { loggedBy?: string | null };
+export type LocalMaterial = SyncedFields & Fields<typeof newMaterialSchema>;
+export type LocalContainer = SyncedFields & Fields<typeof newContainerSchema>;
+
+export interface LocalLedgerEntry extends SyncedFields {
+  containerId: string;
+  kind: LedgerKind;
+  /** Signed, in the container's unit. */
+  quantity: number;
+  costMinor: number;
+  at: string;
+  pourId: string | null;
+  note: string;
+}
+
+export interface PourShortfall {
+  part: ContainerPart;
+  quantityG: number;
+}
+
+export interface LocalPour extends SyncedFields {
+  buildId: string;
+  stepId: string | null;
+  materialId: string;
+  startAt: string;
+  /** Null until the server has planned the pour and its copy has been pulled. */
+  request: PourPlanRequest | null;
+  plan: Omit<PourPlan, 'request'> | null;
+  shortfall: PourShortfall[];
+  note: string;
+  loggedBy?: string | null;
+  /** What was logged on this device, kept until the server's plan arrives. */
+  logged?: z.output<typeof newPourSchema>;
+}
+
+export const SYNCED_TABLES = ['builds', 'steps', 'materials', 'containers', 'ledgerEntries', 'pours'] as const;
+export type SyncedTableName = (typeof SYNCED_TABLES)[number];
+
+export const TABLE_OF: Readonly<Record<SyncedEntity, SyncedTableName>> = {
+  build: 'builds',
+  step: 'steps',
+  material: 'materials',
+  container: 'containers',
+  ledgerEntry: 'ledgerEntries',
+  pour: 'pours',
+};
+
+export type RejectReason = Extract<MutationResult, { status: 'rejected' }>['reason'];
+
+/**
+ * How to put one record back if its change is discarded: `restore` holds the fields as they were before
+ * the change, or is null when the change created the record.
+ */
+export interface RecordUndo {
+  table: SyncedTableName;
+  id: string;
+  restore: Record<string, unknown> | null;
+}
+
+export interface OutboxRow {
+  /** Order of writing on this device; pushed oldest first. */
+  seq: number;
+  mutationId: string;
+  workshopId: string;
+  mutation: Mutation;
+  queuedAt: string;
+  /** How many pushes carried it. */
+  attempts: number;
+  state: 'waiting' | 'rejected';
+  reason?: RejectReason;
+  undo: RecordUndo[];
+}
+
+export interface SyncStateRow {
+  workshopId: string;
+  /** The last change number pulled. */
+  cursor: number;
+  lastSyncedAt: string | null;
+  lastError?: string;
+}
