@@ -7,9 +7,9 @@ import {
   insertRecord,
   liveRecord,
   patchRecord,
-  tombstone,
   writeRecords,
   type RecordKind,
+  recordRemover,
 } from '../records/synced-records.js';
 
 export const BUILD: RecordKind = { table: builds, noun: 'build' };
@@ -80,11 +80,7 @@ export function updateBuild(
   });
 }
 
-export function deleteBuild(ctx: ServerContext, userId: string, workshopId: string, id: string) {
-  return writeRecords(ctx, userId, workshopId, (tx, changeNumber) =>
-    tombstone(tx, workshopId, BUILD, id, changeNumber),
-  );
-}
+export const deleteBuild = recordRemover(BUILD);
 
 export function createStep(
   ctx: ServerContext,
@@ -117,8 +113,6 @@ export function updateStep(
   );
 }
 
-export function deleteStep(ctx: ServerContext, userId: string, workshopId: string, id: string) {
-  return writeRecords(ctx, userId, workshopId, (tx, changeNumber) => tombstone(tx, workshopId, STEP, id, changeNumber));
-}
+export const deleteStep = recordRemover(STEP);
 
 export const stepsOfBuild = (buildId: string) => and(eq(buildSteps.buildId, buildId), isNull(buildSteps.deletedAt));

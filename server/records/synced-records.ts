@@ -124,3 +124,26 @@ export async function tombstone(
     .set({ deletedAt: now, updatedAt: now, changeNumber } as never)
     .where(eq(table.id, id));
 }
+
+type Editor<Patch> = (
+  ctx: ServerContext,
+  userId: string,
+  workshopId: string,
+  id: string,
+  patch: Patch,
+) => Promise<Record<string, unknown>>;
+type Remover = (ctx: ServerContext, userId: string, workshopId: string, id: string) => Promise<void>;
+
+/** Editing a record field by field, for a kind whose patch needs no translation on the way in. */
+export function recordEditor<Patch extends object>(kind: RecordKind): Editor<Patch> {
+  return (ctx, userId, workshopId, id, patch) =>
+    writeRecords(ctx, userId, workshopId, (tx, changeNumber) =>
+      patchRecord(tx, workshopId, kind, id, patch as Record<string, unknown>, changeNumber),
+    );
+}
+
+/** Deleting a record: a tombstone that pulls carry to every device. */
+export function recordRemover(kind: RecordKind): Remover {
+  return (ctx, userId, workshopId, id) =>
+    writeRecords(ctx, userId, workshopId, (tx, changeNumber) => tombstone(tx, workshopId, kind, id, changeNumber));
+}

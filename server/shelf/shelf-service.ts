@@ -14,10 +14,10 @@ import { containers, ledgerEntries, materials } from '../db/schema/index.js';
 import {
   insertRecord,
   liveRecord,
-  patchRecord,
-  tombstone,
   writeRecords,
   type RecordKind,
+  recordEditor,
+  recordRemover,
 } from '../records/synced-records.js';
 import { remainingOf, type ContainerRow } from './stock.js';
 
@@ -36,23 +36,9 @@ export function createMaterial(
   );
 }
 
-export function updateMaterial(
-  ctx: ServerContext,
-  userId: string,
-  workshopId: string,
-  id: string,
-  patch: z.output<typeof materialPatchSchema>,
-) {
-  return writeRecords(ctx, userId, workshopId, (tx, changeNumber) =>
-    patchRecord(tx, workshopId, MATERIAL, id, patch, changeNumber),
-  );
-}
+export const updateMaterial = recordEditor<z.output<typeof materialPatchSchema>>(MATERIAL);
 
-export function deleteMaterial(ctx: ServerContext, userId: string, workshopId: string, id: string) {
-  return writeRecords(ctx, userId, workshopId, (tx, changeNumber) =>
-    tombstone(tx, workshopId, MATERIAL, id, changeNumber),
-  );
-}
+export const deleteMaterial = recordRemover(MATERIAL);
 
 /** A new container arrives full: its purchase is the first entry in its stock book. */
 export function createContainer(
@@ -78,23 +64,9 @@ export function createContainer(
   });
 }
 
-export function updateContainer(
-  ctx: ServerContext,
-  userId: string,
-  workshopId: string,
-  id: string,
-  patch: z.output<typeof containerPatchSchema>,
-) {
-  return writeRecords(ctx, userId, workshopId, (tx, changeNumber) =>
-    patchRecord(tx, workshopId, CONTAINER, id, patch, changeNumber),
-  );
-}
+export const updateContainer = recordEditor<z.output<typeof containerPatchSchema>>(CONTAINER);
 
-export function deleteContainer(ctx: ServerContext, userId: string, workshopId: string, id: string) {
-  return writeRecords(ctx, userId, workshopId, (tx, changeNumber) =>
-    tombstone(tx, workshopId, CONTAINER, id, changeNumber),
-  );
-}
+export const deleteContainer = recordRemover(CONTAINER);
 
 /** Spilled, skinned over or gone off: taken off the stock, costed, but charged to no build. */
 export function recordWaste(
