@@ -55,8 +55,15 @@ export type PourForm = ReturnType<typeof createPourForm>;
 export type PourFormValue = ReturnType<PourForm['getRawValue']>;
 
 /** Area typed in: cm² for metric, in² for imperial. */
-export const AREA_UNIT = { mm: 'cm²', in: 'in²' } as const;
-const MM2_PER_AREA_UNIT = { mm: 100, in: 645.16 } as const;
+export interface AreaUnit {
+  readonly label: 'cm²' | 'in²';
+  readonly mm2: number;
+}
+
+/** Areas are typed and shown in cm² (metric) or in² (imperial); 1 in² = 645.16 mm² exactly (NIST HB 44). */
+export function areaUnitFor(units: DisplayUnits): AreaUnit {
+  return units.length === 'in' ? { label: 'in²', mm2: 645.16 } : { label: 'cm²', mm2: 100 };
+}
 
 function number(value: string): number {
   return parseDecimal(value) ?? Number.NaN;
@@ -90,7 +97,7 @@ function shapeFrom(value: PourFormValue, units: DisplayUnits): PourShapeInput {
     case 'polygon':
       return { kind: 'polygon', points: parseOutline(value.outline, units) };
     case 'area':
-      return { kind: 'area', areaMm2: number(value.area) * MM2_PER_AREA_UNIT[units.length === 'in' ? 'in' : 'mm'] };
+      return { kind: 'area', areaMm2: number(value.area) * areaUnitFor(units).mm2 };
   }
 }
 
@@ -172,11 +179,7 @@ export function convertFields(value: PourFormValue, from: DisplayUnits, to: Disp
     change[key] = convert(value[key], (n) => fromCelsius(toCelsius(n, from.temperature), to.temperature));
   }
   change.displaced = convert(value.displaced, (n) => fromMl(toMl(n, from.volume), to.volume));
-  change.area = convert(
-    value.area,
-    (n) =>
-      (n * MM2_PER_AREA_UNIT[from.length === 'in' ? 'in' : 'mm']) / MM2_PER_AREA_UNIT[to.length === 'in' ? 'in' : 'mm'],
-  );
+  change.area = convert(value.area, (n) => (n * areaUnitFor(from).mm2) / areaUnitFor(to).mm2);
   change.outline = value.outline
     .split('\n')
     .map((line) =>

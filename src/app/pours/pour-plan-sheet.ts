@@ -16,6 +16,7 @@ import {
 } from '@benchtide/shared';
 import { format } from 'date-fns';
 import { LayerDiagram } from './layer-diagram';
+import { areaUnitFor } from './pour-form';
 import { PourCautions } from './pour-cautions';
 
 const WHEN = 'EEE d MMM, HH:mm';
@@ -50,8 +51,8 @@ export class PourPlanSheet {
     return {
       toMix: formatVolume(volume.totalToMixMl, unit),
       toMixMass: formatMass(mix.exactTotal.totalG, this.units().mass),
-      area: formatNumber(volume.areaMm2 / (this.units().length === 'in' ? 645.16 : 100)),
-      areaUnit: this.units().length === 'in' ? 'in²' : 'cm²',
+      area: formatNumber(volume.areaMm2 / areaUnitFor(this.units()).mm2),
+      areaUnit: areaUnitFor(this.units()).label,
       gross: formatVolume(volume.grossVolumeMl, unit),
       displaced: formatVolume(volume.displacedMl, unit),
       net: formatVolume(volume.netVolumeMl, unit),

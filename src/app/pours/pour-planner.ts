@@ -21,7 +21,7 @@ import { DevicePreferences, SCALE_RESOLUTIONS_G } from '../core/device-preferenc
 import { UnitSystemToggle } from '../core/unit-system-toggle';
 import { PourPlanDraft } from './pour-plan-draft';
 import { PourPlanSheet } from './pour-plan-sheet';
-import { AREA_UNIT, convertFields, presetFields, toPlanRequest, type ShapeKind } from './pour-form';
+import { areaUnitFor, convertFields, presetFields, toPlanRequest, type ShapeKind } from './pour-form';
 import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';
 
 const SHAPES: readonly { kind: ShapeKind; label: string }[] = [
@@ -73,7 +73,7 @@ export class PourPlanner {
       length: UNIT_LABELS[units.length],
       volume: UNIT_LABELS[units.volume],
       temperature: TEMPERATURE_LABELS[units.temperature],
-      area: AREA_UNIT[units.length === 'in' ? 'in' : 'mm'],
+      area: areaUnitFor(units).label,
     };
   });
   protected readonly scaleResolutionG = computed(() => this.preferences.values().scaleResolutionG);
