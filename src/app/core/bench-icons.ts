@@ -38,6 +38,33 @@ const ICONS: Record<string, string> = {
   'eye-off':
     '<path d="M2.5 12s3.5-6.5 9.5-6.5 9.5 6.5 9.5 6.5-3.5 6.5-9.5 6.5S2.5 12 2.5 12z"/><circle cx="12" cy="12" r="3"/>' +
     '<path d="m4 4 16 16"/>',
+  // a diorama base seen at an angle, a tree on it
+  builds:
+    '<path d="M3 15.5 12 19l9-3.5-9-3.5z"/><path d="M3 15.5V17l9 3.5 9-3.5v-1.5"/><path d="M12 15.5V9"/><path d="M9.5 11 12 5l2.5 6z"/>',
+  // a shelf with a tall and a short bottle
+  shelf:
+    '<path d="M3 20h18M4 20v-1M20 20v-1"/><rect x="6" y="9" width="4" height="11" rx="1"/><path d="M7 9V6.5h2V9"/><rect x="13" y="13" width="5" height="7" rx="1"/>',
+  // a stack of coins
+  costs:
+    '<ellipse cx="12" cy="6.5" rx="7" ry="2.5"/><path d="M5 6.5v4c0 1.4 3.1 2.5 7 2.5s7-1.1 7-2.5v-4M5 10.5v4c0 1.4 3.1 2.5 7 2.5s7-1.1 7-2.5v-4M5 14.5v3c0 1.4 3.1 2.5 7 2.5s7-1.1 7-2.5v-3"/>',
+  // a plus
+  add: '<path d="M12 5v14M5 12h14"/>',
+  // a pencil
+  edit: '<path d="M4 20h4L19 9l-4-4L4 16z"/><path d="m13.5 6.5 4 4"/>',
+  // a bin
+  delete: '<path d="M4 7h16M9 7V4.5h6V7M6.5 7l1 13h9l1-13"/><path d="M10 11v5M14 11v5"/>',
+  // a printer
+  print: '<path d="M7 9V3.5h10V9"/><rect x="3.5" y="9" width="17" height="7.5" rx="1.5"/><path d="M7 14h10v6.5H7z"/>',
+  // two arrows chasing round: sync
+  sync: '<path d="M19.5 9A8 8 0 0 0 5.2 7.5M4.5 15a8 8 0 0 0 14.3 1.5"/><path d="M5 3.5v4h4M19 20.5v-4h-4"/>',
+  // an arrow down into a phone: install
+  install: '<rect x="6.5" y="2.5" width="11" height="19" rx="2"/><path d="M12 7v7M9 11l3 3 3-3M10.5 18.5h3"/>',
+  // a notebook page with lines: a build step
+  step: '<rect x="5" y="3" width="14" height="18" rx="1.5"/><path d="M8.5 8h7M8.5 12h7M8.5 16h4"/>',
+  // three dots: more
+  more: '<circle cx="5.5" cy="12" r="1"/><circle cx="12" cy="12" r="1"/><circle cx="18.5" cy="12" r="1"/>',
+  // a chevron back
+  back: '<path d="M15 5l-7 7 7 7"/>',
   // an envelope
   mail: '<rect x="3" y="5.5" width="18" height="13" rx="1.5"/><path d="m3.5 6.5 8.5 6.5 8.5-6.5"/>',
 };
