@@ -130,6 +130,20 @@ export function formatDuration(minutes: number): string {
   return `${sign}${days} d${hours > 0 ? ` ${hours} h` : ''}`;
 }
 
+/**
+ * A running countdown: "42:07" under an hour, "2:10:05" under a day, then whole days and hours.
+ * Rounded up to the second, so it never shows 0:00 before the moment has come.
+ */
+export function formatCountdown(ms: number): string {
+  if (!Number.isFinite(ms)) return '—';
+  const seconds = Math.max(0, Math.ceil(ms / 1000));
+  const two = (n: number) => String(n).padStart(2, '0');
+  const [h, m, s] = [Math.floor(seconds / 3600), Math.floor(seconds / 60) % 60, seconds % 60];
+  if (h === 0) return `${m}:${two(s)}`;
+  if (h < 24) return `${h}:${two(m)}:${two(s)}`;
+  return formatDuration(seconds / 60);
+}
+
 function withUnit(value: number, label: string, options: NumberFormatOptions): string {
   return `${formatNumber(value, options)} ${label}`;
 }

@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import {
   decimalPlaces,
+  formatCountdown,
   formatDuration,
   formatLength,
   formatMass,
@@ -121,5 +122,22 @@ describe('formatDuration', () => {
     expect(formatDuration(24 * 60)).toBe('1 d');
     expect(formatDuration(3 * 24 * 60 + 4 * 60 + 10)).toBe('3 d 4 h');
     expect(formatDuration(23 * 60 + 59.6)).toBe('1 d');
+  });
+});
+
+describe('formatCountdown', () => {
+  it('should show minutes and seconds under an hour, rounding up so 0:00 means the moment has come', () => {
+    expect(formatCountdown(42 * 60_000 + 7000)).toBe('42:07');
+    expect(formatCountdown(1)).toBe('0:01');
+    expect(formatCountdown(0)).toBe('0:00');
+    expect(formatCountdown(-5000)).toBe('0:00');
+  });
+
+  it('should show hours, minutes and seconds under a day', () => {
+    expect(formatCountdown((2 * 3600 + 10 * 60 + 5) * 1000)).toBe('2:10:05');
+  });
+
+  it('should fall back to days and hours beyond a day', () => {
+    expect(formatCountdown((3 * 24 + 4) * 3600 * 1000)).toBe('3 d 4 h');
   });
 });
