@@ -726,7 +726,9 @@ const API_ROUTES: readonly ApiRoute[] = [
       description:
         'One answer per change, in order: applied with its change number, or rejected with the reason. A change sent again answers as the first time.',
     },
-    refusals: { 503: 'Nothing was saved this time (code try_again); send the same changes again later.' },
+    refusals: {
+      503: 'Nothing was saved this time (code try_again); send the same changes again after `retryAfterMinutes` at the soonest.',
+    },
   },
   {
     method: 'get',
@@ -740,7 +742,9 @@ const API_ROUTES: readonly ApiRoute[] = [
       description:
         'A page of changed records (tombstones included) with the next cursor, or startOver when the device must copy everything again.',
     },
-    refusals: { 503: 'Nothing could be read this time (code try_again); ask again later.' },
+    refusals: {
+      503: 'Nothing could be read this time (code try_again); ask again after `retryAfterMinutes` at the soonest.',
+    },
   },
 ];
 
@@ -753,7 +757,11 @@ const apiErrorSchema: z.ZodType<ApiErrorBody> = z.object({
       .record(z.string(), z.string())
       .optional()
       .meta({ description: 'On code invalid: what to fix, by field path (shape.lengthMm).' }),
-    retryAfterMinutes: z.int().positive().optional().meta({ description: 'On code rate_limited.' }),
+    retryAfterMinutes: z
+      .int()
+      .positive()
+      .optional()
+      .meta({ description: 'On codes rate_limited and try_again: wait at least this long before trying again.' }),
   }),
 });
 

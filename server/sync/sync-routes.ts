@@ -7,14 +7,16 @@ import { validate } from '../core/validate.js';
 import { pull } from './pull-service.js';
 import { push } from './push-service.js';
 
-/** A failure that is not the request's fault: the device keeps its outbox and tries again. */
+/** A failure that is not the request's fault: the device keeps its outbox and tries again, a minute later at the soonest. */
 function passing(error: unknown): never {
   if (error instanceof AppError) throw error;
-  throw new AppError(
+  const busy = new AppError(
     503,
     'try_again',
     'The server could not save this just now; nothing was changed. Your device will try again.',
   );
+  busy.retryAfterMinutes = 1;
+  throw busy;
 }
 
 export function syncRoutes(ctx: ServerContext): Router {

@@ -113,6 +113,9 @@ describe('sync', () => {
       const failed = await push(owner, batch);
       expect(failed.status).toBe(503);
       expect(failed.body.error.code).toBe('try_again');
+      // Devices wait at least a minute before trying again, so a struggling server is not swamped.
+      expect(failed.body.error.retryAfterMinutes).toBe(1);
+      expect(failed.headers['retry-after']).toBe('60');
       expect(await counts()).toBe(before);
 
       await server.ctx.db.execute(sql.raw(`DROP TRIGGER fail_once_for_spec ON builds`));
@@ -202,5 +205,29 @@ describe('sync', () => {
     const stranger = await makeAccount(server.ctx, 'Yan');
     const notMine = await pull(stranger, 0).expect(200);
     expect(notMine.body.startOver).toBeTrue();
+  });
+
+  it('should answer an empty page with the cursor it was given when nothing changed since', async () => {
+    await push(owner, [newBuild(), newBuild()]).expect(200);
+    const { cursor } = await pullAll(owner);
+
+    const page = await pull(owner, cursor).expect(200);
+
+    expect(page.body).toEqual({ startOver: false, changes: [], cursor, more: false });
+  });
+
+  it('should refuse a push to a workshop the account has left with 404 workshop_unknown, saving nothing', async () => {
+    const member = await makeAccount(server.ctx, 'Zeb');
+    await addMember(server.ctx, workshopId, member, 'builder');
+    await request(server.app)
+      .delete(`/api/workshops/${workshopId}/members/${member.id}`)
+      .set('Cookie', member.cookie)
+      .expect(204);
+    const before = await counts();
+
+    const refused = await push(member, [newBuild()]).expect(404);
+
+    expect(refused.body.error.code).toBe('workshop_unknown');
+    expect(await counts()).toBe(before);
   });
 });
