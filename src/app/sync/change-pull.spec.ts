@@ -1,18 +1,25 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
-import type { PullAnswer, PulledChange } from '@benchtide/shared';
+import { materialDataSheetSchema, remainingByContainer, type PullAnswer, type PulledChange } from '@benchtide/shared';
 import { v7 } from 'uuid';
 import { BENCH_DB_NAME, BenchDb } from './bench-db';
 import { ChangePull } from './change-pull';
 import { OfflineStore } from './offline-store';
-import { dropDatabase, serverBuild, SyncServer } from './sync-testing';
+import type { LocalContainer, LocalLedgerEntry, LocalMaterial, LocalPour } from './synced-records';
+import { dropDatabase, serverBuild, SyncServer, TEST_DATA_SHEET } from './sync-testing';
 
 const WORKSHOP = v7();
 const OTHER_WORKSHOP = v7();
 
 function buildChange(id: string, changeNumber: number, more: Parameters<typeof serverBuild>[3] = {}): PulledChange {
   return { entity: 'build', changeNumber, record: serverBuild(WORKSHOP, id, changeNumber, more) };
+}
+
+/** The fields every record the server sends has. */
+function synced(id: string, changeNumber: number) {
+  const at = '2025-03-01T09:00:00.000Z';
+  return { id, workshopId: WORKSHOP, createdAt: at, updatedAt: at, deletedAt: null, changeNumber };
 }
 
 function page(changes: PulledChange[], cursor: number, more = false): PullAnswer {
@@ -152,6 +159,116 @@ describe('ChangePull', () => {
       (await server.nextPull(WORKSHOP, 0)).flush(startOver);
 
       await expectAsync(pulled).toBeRejectedWithError(/twice to start over/);
+    });
+  });
+
+  describe('pours logged on this device', () => {
+    const materialId = v7();
+    const [partA, partB] = [v7(), v7()];
+
+    async function stock(): Promise<Record<string, number>> {
+      const entries = (await db.ledgerEntries.toArray()).filter((entry) => entry.deletedAt === null);
+      return remainingByContainer(entries.map((entry) => ({ ...entry, atMs: Date.parse(entry.at) })));
+    }
+
+    /** The server's copy of a pour logged here, and its own stock uses of it, as a pull brings them. */
+    async function serverCopy(pourId: string, changeNumber: number, deletedAt: string | null = null) {
+      const { pending: _pending, ...local } = (await db.pours.get(pourId)) as LocalPour;
+      const pour: LocalPour = { ...local, changeNumber, deletedAt };
+      const use = (containerId: string, costMinor: number): LocalLedgerEntry => ({
+        ...synced(v7(), changeNumber),
+        containerId,
+        kind: 'pour-use',
+        quantity: -9.9,
+        costMinor,
+        at: pour.startAt,
+        pourId,
+        note: '',
+        deletedAt,
+      });
+      const uses = [use(partA, 50), use(partB, 40)];
+      const changes: PulledChange[] = [
+        { entity: 'pour', changeNumber, record: { ...pour } },
+        ...uses.map((record) => ({ entity: 'ledgerEntry' as const, changeNumber, record: { ...record } })),
+      ];
+      return { uses, changes };
+    }
+
+    const logPour = () =>
+      TestBed.inject(OfflineStore).logPour(WORKSHOP, {
+        buildId: v7(),
+        materialId,
+        shape: { kind: 'rectangle', lengthMm: 100, widthMm: 50 },
+        depthMm: 4,
+        roomTempC: 20,
+        startAt: '2025-03-01T10:00:00Z',
+      });
+
+    beforeEach(async () => {
+      const material: LocalMaterial = {
+        ...synced(materialId, 1),
+        name: 'Test resin',
+        kind: 'two-part-epoxy',
+        dataSheet: materialDataSheetSchema.parse(TEST_DATA_SHEET),
+        shelfLifeOpenedDays: null,
+        safetySheet: '',
+      };
+      const container = (id: string, part: 'A' | 'B'): LocalContainer => ({
+        ...synced(id, 2),
+        materialId,
+        part,
+        sizeQty: 500,
+        unit: 'g',
+        priceMinor: 2500,
+        currency: 'EUR',
+        boughtOn: '2025-02-10',
+        openedOn: null,
+        useBy: null,
+        lowStockQty: null,
+        lot: null,
+      });
+      const purchase = (containerId: string): LocalLedgerEntry => ({
+        ...synced(containerId, 2),
+        containerId,
+        kind: 'purchase',
+        quantity: 500,
+        costMinor: 0,
+        at: '2025-02-10T12:00:00.000Z',
+        pourId: null,
+        note: '',
+      });
+      await db.materials.put(material);
+      await db.containers.bulkPut([container(partA, 'A'), container(partB, 'B')]);
+      await db.ledgerEntries.bulkPut([purchase(partA), purchase(partB)]);
+      await db.syncState.put({ workshopId: WORKSHOP, cursor: 2, lastSyncedAt: null });
+    });
+
+    it("should replace the stock uses drawn here with the server's, so the stock here is the server's sum", async () => {
+      const pourId = await logPour();
+      expect(await stock()).toEqual({ [partA]: 490.1, [partB]: 490.1 });
+      const { uses, changes } = await serverCopy(pourId, 3);
+
+      const pulled = pull.pull(WORKSHOP);
+      (await server.nextPull(WORKSHOP, 2)).flush(page(changes, 3));
+      await pulled;
+
+      expect(await db.ledgerEntries.where({ pourId }).toArray()).toEqual(jasmine.arrayWithExactContents(uses));
+      expect(await stock()).toEqual({ [partA]: 490.1, [partB]: 490.1 });
+      expect((await db.pours.get(pourId))?.pending).toBeUndefined();
+    });
+
+    it('should drop the uses drawn here when the pour arrives deleted, and keep those of pours not in the page', async () => {
+      const [deleted, waiting] = [await logPour(), await logPour()];
+      const { changes } = await serverCopy(deleted, 3, '2025-03-01T12:00:00.000Z');
+
+      const pulled = pull.pull(WORKSHOP);
+      (await server.nextPull(WORKSHOP, 2)).flush(page(changes, 3));
+      await pulled;
+
+      expect(await db.pours.get(deleted)).toBeUndefined();
+      expect(await db.ledgerEntries.where({ pourId: deleted }).count()).toBe(0);
+      expect(await db.ledgerEntries.where({ pourId: waiting }).count()).toBe(2);
+      expect(await stock()).toEqual({ [partA]: 490.1, [partB]: 490.1 });
     });
   });
 });

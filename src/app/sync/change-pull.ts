@@ -10,7 +10,9 @@ const PAGE_SIZE = 1000;
 /**
  * Brings a workshop's records up to date from the server, page by page from where the last pull stopped.
  * The server's copy of a record replaces this device's, even one with changes still queued here: those
- * are sent again on the next push and come back with the pull after it.
+ * are sent again on the next push and come back with the pull after it. A pour logged here drew stock
+ * under ids of this device's making; the server's uses of it have their own, so when the server's pour
+ * arrives the provisional uses go, and the stock here is the server's sum again.
  */
 @Injectable({ providedIn: 'root' })
 export class ChangePull {
@@ -47,8 +49,16 @@ export class ChangePull {
       const table = TABLE_OF[change.entity] as SyncedTableName | undefined;
       if (table !== undefined) latest.set(`${table}/${change.record.id}`, [table, change.record]);
     }
+    const pourIds = [...latest.values()].filter(([table]) => table === 'pours').map(([, record]) => record.id);
     const { db } = this;
     await db.transaction('rw', [...db.syncedTables, db.syncState], async () => {
+      await db.ledgerEntries
+        .where('pourId')
+        .anyOf(pourIds)
+        .filter(
+          (entry) => entry.pending === true && entry.changeNumber === 0 && !latest.has(`ledgerEntries/${entry.id}`),
+        )
+        .delete();
       for (const name of SYNCED_TABLES) {
         const records = [...latest.values()].filter(([table]) => table === name).map(([, record]) => record);
         // A tombstone removes the record: nothing of a deleted record is shown.

@@ -1,15 +1,23 @@
 import { signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
-import type { NewPour } from '@benchtide/shared';
+import { planPour, remainingByContainer, type NewContainer, type NewPour } from '@benchtide/shared';
 import { v7 } from 'uuid';
 import { BENCH_DB_NAME, BenchDb } from './bench-db';
 import { LocalRecords } from './local-records';
-import { OfflineStore } from './offline-store';
+import { OfflineStore, PourPlanError, StockShortError } from './offline-store';
 import { insertRecords } from './record-writes';
-import { dropDatabase, serverBuild, until } from './sync-testing';
+import { dropDatabase, serverBuild, TEST_DATA_SHEET, until } from './sync-testing';
 
 const WORKSHOP = v7();
 const OTHER_WORKSHOP = v7();
+/** 100 × 50 mm, 4 mm deep: 20 mL (1 mL = 1000 mm³). */
+const POUR = {
+  buildId: v7(),
+  shape: { kind: 'rectangle', lengthMm: 100, widthMm: 50 },
+  depthMm: 4,
+  roomTempC: 20,
+  startAt: '2025-03-01T10:00:00Z',
+} as const;
 
 describe('OfflineStore', () => {
   let db: BenchDb;
@@ -185,25 +193,6 @@ describe('OfflineStore', () => {
       expect((await db.ledgerEntries.get(id))?.quantity).toBe(-37.5);
     });
 
-    it('should store only the pour, waiting for the server to plan it and draw the stock', async () => {
-      const pour: Omit<NewPour, 'id'> = {
-        buildId: v7(),
-        materialId: v7(),
-        shape: { kind: 'rectangle', lengthMm: 200, widthMm: 100 },
-        depthMm: 6,
-        roomTempC: 21,
-        startAt: '2025-03-01T10:00:00Z',
-      };
-
-      const id = await store.logPour(WORKSHOP, pour);
-
-      expect(await db.pours.get(id)).toEqual(
-        jasmine.objectContaining({ pending: true, request: null, plan: null, stepId: null, note: '' }),
-      );
-      expect((await db.pours.get(id))?.logged).toEqual(jasmine.objectContaining({ depthMm: 6, whenShort: 'refuse' }));
-      expect(await db.ledgerEntries.count()).toBe(1);
-    });
-
     it('should take the stock a pour drew off with the deleted pour', async () => {
       const pourId = v7();
       const at = '2025-03-01T10:00:00Z';
@@ -211,13 +200,210 @@ describe('OfflineStore', () => {
       const use = { ...pulled, id: v7(), containerId, kind: 'pour-use' as const, quantity: -120, costMinor: 288 };
       await db.ledgerEntries.put({ ...use, at, pourId, note: '' });
       const pour = { ...pulled, id: pourId, buildId: v7(), stepId: null, materialId: v7(), startAt: at, note: '' };
-      await db.pours.put({ ...pour, request: null, plan: null, shortfall: [] });
+      const planned = planPour({
+        ...POUR,
+        material: TEST_DATA_SHEET,
+        startAtMs: Date.parse(at),
+        scaleResolutionG: 0.1,
+      });
+      if (!planned.ok) throw new Error('The spec pour cannot be planned');
+      const { request, ...plan } = planned.plan;
+      await db.pours.put({ ...pour, request, plan, shortfall: [] });
 
       await store.deletePour(WORKSHOP, pourId);
 
       expect((await db.pours.get(pourId))?.deletedAt).not.toBeNull();
       expect((await db.ledgerEntries.get(use.id))?.deletedAt).not.toBeNull();
       expect((await db.ledgerEntries.get(containerId))?.deletedAt).toBeNull();
+    });
+  });
+
+  describe('logging a pour', () => {
+    let materialId: string;
+
+    const addContainer = (fields: Partial<NewContainer>) =>
+      store.createContainer(WORKSHOP, {
+        materialId,
+        part: 'A',
+        sizeQty: 500,
+        unit: 'g',
+        priceMinor: 2500,
+        currency: 'EUR',
+        boughtOn: '2025-02-10',
+        ...fields,
+      });
+    const logPour = (fields: Partial<NewPour> = {}) => store.logPour(WORKSHOP, { ...POUR, materialId, ...fields });
+
+    async function stock(): Promise<Record<string, number>> {
+      const entries = (await db.ledgerEntries.toArray()).filter((entry) => entry.deletedAt === null);
+      return remainingByContainer(entries.map((entry) => ({ ...entry, atMs: Date.parse(entry.at) })));
+    }
+
+    async function expectNothingWritten(attempt: () => Promise<string>, error: jasmine.Expected<Error>): Promise<void> {
+      const before = [await db.pours.count(), await db.ledgerEntries.count(), await db.outbox.count()];
+      await expectAsync(attempt()).toBeRejectedWith(error);
+      expect([await db.pours.count(), await db.ledgerEntries.count(), await db.outbox.count()]).toEqual(before);
+    }
+
+    beforeEach(async () => {
+      materialId = await store.createMaterial(WORKSHOP, {
+        name: 'Test resin',
+        kind: 'two-part-epoxy',
+        dataSheet: TEST_DATA_SHEET,
+      });
+    });
+
+    // Worked example by hand (see TEST_DATA_SHEET): the pour mixes 9.9 g of each part.
+    it('should plan the pour here and draw each part from the shelf, with the pour and its change in one write', async () => {
+      const partA = await addContainer({ part: 'A', priceMinor: 2500 });
+      const partB = await addContainer({ part: 'B', priceMinor: 2000 });
+      const queued = await db.outbox.count();
+
+      const id = await logPour({ startAt: '2025-03-01T11:00:00+01:00' });
+
+      const pour = await db.pours.get(id);
+      expect(pour).toEqual(jasmine.objectContaining({ pending: true, changeNumber: 0, shortfall: [], materialId }));
+      expect(pour?.request.depthMm).toBe(4);
+      expect(pour?.plan.mix.total.partAG).toBe(9.9);
+      expect(pour?.plan.mix.total.partBG).toBe(9.9);
+      expect(Object.keys(pour?.plan ?? {})).not.toContain('request');
+      const uses = await db.ledgerEntries.where({ pourId: id }).toArray();
+      // 9.9 g × 2500 / 500 = 49.5 → 50 cents; 9.9 g × 2000 / 500 = 39.6 → 40 cents (each rounded half up).
+      expect(uses.map((use) => [use.containerId, use.kind, use.quantity, use.costMinor])).toEqual(
+        jasmine.arrayWithExactContents([
+          [partA, 'pour-use', -9.9, 50],
+          [partB, 'pour-use', -9.9, 40],
+        ]),
+      );
+      for (const use of uses) {
+        expect(use).toEqual(
+          jasmine.objectContaining({ at: '2025-03-01T10:00:00.000Z', pending: true, changeNumber: 0 }),
+        );
+        expect(use.id).not.toBe(use.containerId);
+      }
+      expect(await stock()).toEqual({ [partA]: 490.1, [partB]: 490.1 });
+      const rows = await db.outbox.toArray();
+      expect(rows.length).toBe(queued + 1);
+      const row = rows.at(-1);
+      expect(row?.mutation).toEqual(
+        jasmine.objectContaining({ type: 'pour.create', data: jasmine.objectContaining({ id, whenShort: 'refuse' }) }),
+      );
+      // Discarding the change, were the server to refuse it, takes the pour and its uses away again.
+      expect(row?.undo).toEqual(
+        jasmine.arrayWithExactContents([
+          { table: 'pours', id, restore: null },
+          ...uses.map((use) => ({ table: 'ledgerEntries', id: use.id, restore: null })),
+        ]),
+      );
+    });
+
+    it('should count the pours already logged here, so a second pour cannot spend the same grams', async () => {
+      const partA = await addContainer({ part: 'A', sizeQty: 15 });
+      await addContainer({ part: 'B' });
+      await logPour();
+
+      await expectNothingWritten(
+        () => logPour(),
+        jasmine.objectContaining({
+          name: 'StockShortError',
+          message: jasmine.stringContaining('The shelf holds 5.1 g of part A; this pour needs 9.9 g.'),
+        }),
+      );
+      expect((await stock())[partA]).toBe(5.1);
+    });
+
+    it('should refuse a pour the shelf here cannot cover, saying what is short, and save nothing', async () => {
+      await addContainer({ part: 'A', sizeQty: 5 });
+      await addContainer({ part: 'B' });
+
+      await expectNothingWritten(logPour, jasmine.any(StockShortError));
+      const error = (await logPour().catch((caught: unknown) => caught)) as StockShortError;
+      expect(error.message).toBe(
+        'The shelf holds 5 g of part A; this pour needs 9.9 g. ' +
+          'Add a container, or record the rest as taken from a bottle not on the shelf.',
+      );
+      expect(error.shortfall).toEqual([{ part: 'A', quantityG: 4.9 }]);
+    });
+
+    it('should record the shortfall when told the rest came from a bottle not on the shelf', async () => {
+      const partA = await addContainer({ part: 'A', sizeQty: 5 });
+      await addContainer({ part: 'B' });
+
+      const id = await logPour({ whenShort: 'record-shortfall' });
+
+      expect((await db.pours.get(id))?.shortfall).toEqual([{ part: 'A', quantityG: 4.9 }]);
+      expect((await stock())[partA]).toBe(0);
+    });
+
+    it('should draw only from the chosen containers, and not from one deleted here', async () => {
+      await addContainer({ part: 'A', boughtOn: '2025-01-01' });
+      const chosen = await addContainer({ part: 'A', boughtOn: '2025-02-01' });
+      const deleted = await addContainer({ part: 'B', boughtOn: '2025-01-01' });
+      const partB = await addContainer({ part: 'B', boughtOn: '2025-02-01' });
+      await store.deleteContainer(WORKSHOP, deleted);
+
+      const id = await logPour({ containerIds: [chosen, partB] });
+
+      const uses = await db.ledgerEntries.where({ pourId: id }).toArray();
+      expect(uses.map((use) => use.containerId)).toEqual(jasmine.arrayWithExactContents([chosen, partB]));
+    });
+
+    it('should turn grams into millilitres for a bottle measured by volume (worked example, V = m / ρ)', async () => {
+      const partA = await addContainer({ part: 'A', unit: 'mL', sizeQty: 250 });
+      await addContainer({ part: 'B' });
+
+      await logPour();
+
+      // 9.9 g / 1.1 g/mL = 9 mL.
+      expect((await stock())[partA]).toBe(241);
+    });
+
+    it('should refuse, saving nothing, when the material is not on this device', async () => {
+      await expectNothingWritten(
+        () => logPour({ materialId: v7() }),
+        jasmine.objectContaining({ message: jasmine.stringContaining('material of this pour is not on this device') }),
+      );
+    });
+
+    it('should refuse, saving nothing, a chosen container this device does not hold', async () => {
+      await addContainer({ part: 'A' });
+
+      await expectNothingWritten(
+        () => logPour({ containerIds: [v7()] }),
+        jasmine.objectContaining({ message: jasmine.stringContaining('container chosen for this pour is not') }),
+      );
+    });
+
+    it('should refuse, saving nothing, a pour the shared planner cannot plan, with its messages', async () => {
+      await addContainer({ part: 'A' });
+
+      await expectNothingWritten(
+        () => logPour({ startAt: '1969-12-31T23:00:00Z' }),
+        jasmine.objectContaining({
+          name: 'PourPlanError',
+          message: jasmine.stringContaining('Start time must not be before 1970'),
+        }),
+      );
+      const error = await logPour({ startAt: '1969-12-31T23:00:00Z' }).catch((caught: unknown) => caught);
+      expect((error as PourPlanError).fields).toEqual({ startAtMs: 'Start time must not be before 1970' });
+    });
+
+    it('should check the input with the shared schemas before anything else', async () => {
+      await expectNothingWritten(
+        () => logPour({ depthMm: 0 }),
+        jasmine.objectContaining({ message: jasmine.stringContaining('Depth must be more than 0 mm') }),
+      );
+    });
+
+    it('should take a pour logged here and its stock back with it when deleted', async () => {
+      const partA = await addContainer({ part: 'A' });
+      await addContainer({ part: 'B' });
+      const id = await logPour();
+
+      await store.deletePour(WORKSHOP, id);
+
+      expect((await db.pours.get(id))?.deletedAt).not.toBeNull();
+      expect((await stock())[partA]).toBe(500);
     });
   });
 });

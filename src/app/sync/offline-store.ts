@@ -3,23 +3,29 @@ import {
   buildPatchSchema,
   containerPatchSchema,
   costOfUseMinor,
+  drawForPour,
   materialPatchSchema,
   newBuildSchema,
   newContainerSchema,
   newMaterialSchema,
   newPourSchema,
   newStepSchema,
+  planPour,
   remainingByContainer,
   stepPatchSchema,
+  stockShortMessage,
   stocktakeAdjustment,
   stocktakeSchema,
   wasteSchema,
+  type FieldError,
   type Mutation,
   type NewBuild,
   type NewContainer,
   type NewMaterial,
   type NewPour,
   type NewStep,
+  type PourShortfall,
+  type ShelfContainer,
 } from '@benchtide/shared';
 import { Subject } from 'rxjs';
 import { v7 } from 'uuid';
@@ -32,6 +38,34 @@ import type { RecordUndo, SyncedTableName } from './synced-records';
 /** A new record as a form gives it: the id is made here unless the caller made it already. */
 type Draft<T> = Omit<T, 'id'> & { id?: string };
 type Input<T extends z.ZodType> = z.input<T>;
+
+const MATERIAL_NOT_HERE =
+  'The material of this pour is not on this device. Sync this workshop, then log the pour again; nothing was saved.';
+const CONTAINER_NOT_HERE =
+  'A container chosen for this pour is not on this device’s shelf for that material. Choose again; nothing was saved.';
+
+/** The shelf holds less than a pour needs and the modeller asked to refuse it: nothing was saved. */
+export class StockShortError extends Error {
+  constructor(
+    message: string,
+    readonly shortfall: readonly PourShortfall[],
+  ) {
+    super(message);
+    this.name = 'StockShortError';
+  }
+}
+
+/** The pour cannot be planned with the material's data sheet: nothing was saved. */
+export class PourPlanError extends Error {
+  /** Each message by its path in the plan request ("material.densityBGPerMl"). */
+  readonly fields: Readonly<Record<string, string>>;
+
+  constructor(errors: readonly FieldError[]) {
+    super(`This pour cannot be planned: ${errors.map((error) => error.message).join('; ')}. Nothing was saved.`);
+    this.name = 'PourPlanError';
+    this.fields = Object.fromEntries(errors.map((error) => [error.path, error.message]));
+  }
+}
 
 /**
  * Every change the bench makes: written to this device's records and queued for the server in one
@@ -136,11 +170,7 @@ export class OfflineStore {
     const data = stocktakeSchema.parse(withId(draft));
     const mutation: Mutation = { type: 'container.stocktake', mutationId: v7(), recordId: containerId, data };
     await this.apply(workshopId, mutation, async (now) => {
-      const entries = await this.db.ledgerEntries
-        .where({ containerId })
-        .filter((entry) => entry.deletedAt === null)
-        .toArray();
-      const sums = remainingByContainer(entries.map((entry) => ({ ...entry, atMs: Date.parse(entry.at) })));
+      const sums = await this.remainingOf([containerId]);
       const quantity = stocktakeAdjustment(data.countedQty, sums[containerId] ?? 0);
       return insertRecords(this.db, workshopId, now, [
         ['ledgerEntries', ledgerEntry(containerId, 'stocktake', quantity, { id: data.id, at: now })],
@@ -149,14 +179,35 @@ export class OfflineStore {
     return data.id;
   }
 
-  /** Only the pour is written here: the server plans it and draws the stock, and both arrive by pull. */
+  /**
+   * Planned and drawn from this device's shelf at once, with the shared maths the server uses, so the stock
+   * and the costs show before the next sync. The server plans and draws again when the change arrives: its
+   * pour and stock uses replace these on pull. Throws, saving nothing, when the material is not on this
+   * device, the pour cannot be planned, or the shelf is short and `whenShort` is refuse.
+   */
   async logPour(workshopId: string, draft: Draft<NewPour>): Promise<string> {
     const data = newPourSchema.parse(withId(draft));
-    const { id, buildId, materialId, startAt, note } = data;
-    const pour = { id, buildId, stepId: data.stepId ?? null, materialId, startAt, note };
-    return this.create(workshopId, { type: 'pour.create', mutationId: v7(), data }, [
-      ['pours', { ...pour, request: null, plan: null, shortfall: [], logged: data }],
-    ]);
+    const { id, buildId, materialId, startAt, note, containerIds } = data;
+    const mutation: Mutation = { type: 'pour.create', mutationId: v7(), data };
+    await this.apply(workshopId, mutation, async (now) => {
+      const material = await this.db.materials.get(materialId);
+      if (material?.workshopId !== workshopId || material.deletedAt !== null) throw new Error(MATERIAL_NOT_HERE);
+      const planned = planPour({ ...data, material: material.dataSheet, startAtMs: Date.parse(startAt) });
+      if (!planned.ok) throw new PourPlanError(planned.errors);
+      const { uses, shortfall } = drawForPour(planned.plan, await this.shelfOf(workshopId, data), containerIds);
+      if (shortfall.length > 0 && data.whenShort === 'refuse') {
+        throw new StockShortError(stockShortMessage(planned.plan, shortfall), shortfall);
+      }
+      const { request, ...plan } = planned.plan;
+      const pour = { id, buildId, stepId: data.stepId ?? null, materialId, startAt, request, plan, shortfall, note };
+      const at = new Date(startAt).toISOString();
+      const drawn = uses.map(({ containerId, quantity, costMinor }) => {
+        const more = { id: v7(), costMinor, pourId: id, at };
+        return ['ledgerEntries', ledgerEntry(containerId, 'pour-use', -quantity, more)] as const;
+      });
+      return insertRecords(this.db, workshopId, now, [['pours', pour], ...drawn]);
+    });
+    return id;
   }
   async deletePour(workshopId: string, id: string): Promise<void> {
     return this.remove(workshopId, 'pours', { type: 'pour.delete', mutationId: v7(), recordId: id });
@@ -165,6 +216,32 @@ export class OfflineStore {
   /** Throws a rejected change away and puts back what it changed on this device, where nothing newer did. */
   discard(seq: number): Promise<void> {
     return discardChange(this.db, seq);
+  }
+
+  /** The material's live containers on this device, each with what its stock book here says is left. */
+  private async shelfOf(
+    workshopId: string,
+    pour: { materialId: string; containerIds?: readonly string[] },
+  ): Promise<ShelfContainer[]> {
+    const containers = await this.db.containers
+      .where({ materialId: pour.materialId })
+      .filter((container) => container.workshopId === workshopId && container.deletedAt === null)
+      .toArray();
+    if (pour.containerIds?.some((id) => !containers.some((container) => container.id === id))) {
+      throw new Error(CONTAINER_NOT_HERE);
+    }
+    const sums = await this.remainingOf(containers.map((container) => container.id));
+    return containers.map((container) => ({ ...container, remainingQty: sums[container.id] ?? 0 }));
+  }
+
+  /** Remaining stock by container: the sum of its entries on this device, queued ones included. */
+  private async remainingOf(containerIds: readonly string[]): Promise<Record<string, number>> {
+    const entries = await this.db.ledgerEntries
+      .where('containerId')
+      .anyOf([...containerIds])
+      .filter((entry) => entry.deletedAt === null)
+      .toArray();
+    return remainingByContainer(entries.map((entry) => ({ ...entry, atMs: Date.parse(entry.at) })));
   }
 
   private async create(

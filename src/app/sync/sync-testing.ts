@@ -1,6 +1,6 @@
 import type { HttpTestingController, TestRequest } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
-import type { MutationResult, PullAnswer } from '@benchtide/shared';
+import type { MaterialDataSheetInput, MutationResult, PullAnswer } from '@benchtide/shared';
 import type Dexie from 'dexie';
 import type { LocalBuild } from './synced-records';
 
@@ -26,6 +26,24 @@ export async function until<T>(check: () => T | undefined | null | false, what: 
   }
   throw new Error(`Gave up waiting for ${what}`);
 }
+
+/**
+ * Invented data sheet for the pour specs, not any maker's figures: 1:1 by weight with part densities 1.1 and
+ * 0.9 g/mL, so that 100 × 50 × 4 mm (20 mL) weighs 20 / (0.5/1.1 + 0.5/0.9) = 19.8 g, 9.9 g a part
+ * (worked example by hand).
+ */
+export const TEST_DATA_SHEET: MaterialDataSheetInput = {
+  mixRatio: { basis: 'weight', partA: 1, partB: 1 },
+  densityAGPerMl: 1.1,
+  densityBGPerMl: 0.9,
+  potLifeMin: 30,
+  recoatMin: 240,
+  demouldMin: 1440,
+  fullCureMin: 4320,
+  referenceTempC: 20,
+  minCureTempC: 15,
+  maxLayerMm: 10,
+};
 
 /** A build as the server sends it in a pull. */
 export function serverBuild(workshopId: string, id: string, changeNumber: number, more: Partial<LocalBuild> = {}) {
@@ -66,8 +84,13 @@ export const NOTHING_NEW: PullAnswer = { startOver: false, changes: [], cursor: 
 export class SyncServer {
   constructor(private readonly http: HttpTestingController) {}
 
-  nextPush(): Promise<TestRequest> {
-    return until(() => this.http.match({ method: 'POST', url: '/api/sync/push' })[0], 'a push');
+  /** The next push; given a workshop, only a push to it matches. */
+  nextPush(workshopId?: string): Promise<TestRequest> {
+    const expected = (request: { method: string; url: string; body: unknown }) =>
+      request.method === 'POST' &&
+      request.url === '/api/sync/push' &&
+      (workshopId === undefined || (request.body as { workshopId?: string }).workshopId === workshopId);
+    return until(() => this.http.match(expected)[0], `a push${workshopId === undefined ? '' : ' to ' + workshopId}`);
   }
 
   /** The next pull; given a workshop and cursor, only a pull from there for a page of 1000 matches. */

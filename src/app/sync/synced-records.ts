@@ -1,15 +1,14 @@
 import type {
-  ContainerPart,
   LedgerKind,
   Mutation,
   MutationResult,
   newBuildSchema,
   newContainerSchema,
   newMaterialSchema,
-  newPourSchema,
   newStepSchema,
   PourPlan,
   PourPlanRequest,
+  PourShortfall,
   SyncedEntity,
 } from '@benchtide/shared';
 import type { z } from 'zod';
@@ -51,24 +50,18 @@ export interface LocalLedgerEntry extends SyncedFields {
   note: string;
 }
 
-export interface PourShortfall {
-  part: ContainerPart;
-  quantityG: number;
-}
-
 export interface LocalPour extends SyncedFields {
   buildId: string;
   stepId: string | null;
   materialId: string;
   startAt: string;
-  /** Null until the server has planned the pour and its copy has been pulled. */
-  request: PourPlanRequest | null;
-  plan: Omit<PourPlan, 'request'> | null;
+  /** The request as planned, with the material's data sheet as it was that day. */
+  request: PourPlanRequest;
+  /** Planned on this device when logged here; the server plans again and its copy replaces this on pull. */
+  plan: Omit<PourPlan, 'request'>;
   shortfall: PourShortfall[];
   note: string;
   loggedBy?: string | null;
-  /** What was logged on this device, kept until the server's plan arrives. */
-  logged?: z.output<typeof newPourSchema>;
 }
 
 export const SYNCED_TABLES = ['builds', 'steps', 'materials', 'containers', 'ledgerEntries', 'pours'] as const;
