@@ -4,7 +4,7 @@ import { TestBed } from '@angular/core/testing';
 import { v7 } from 'uuid';
 import { BENCH_DB_NAME, BenchDb } from './bench-db';
 import { OfflineStore } from './offline-store';
-import { OutboxPush } from './outbox-push';
+import { NOT_A_MEMBER, OutboxPush } from './outbox-push';
 import { dropDatabase, SyncServer } from './sync-testing';
 
 const WORKSHOP = v7();
@@ -54,7 +54,7 @@ describe('OutboxPush', () => {
     expect(request.request.body).toEqual({ workshopId: WORKSHOP, mutations: rows.map((row) => row.mutation) });
     server.answer(request);
 
-    expect(await pushed).toBeTrue();
+    expect(await pushed).toBe('sent');
     expect(await db.outbox.where({ workshopId: WORKSHOP }).count()).toBe(0);
     expect(await db.outbox.where({ workshopId: OTHER_WORKSHOP }).count()).toBe(1);
   });
@@ -78,7 +78,7 @@ describe('OutboxPush', () => {
     const [row] = await db.outbox.toArray();
     await db.outbox.update(row?.seq ?? 0, { state: 'rejected', reason: REASON });
 
-    expect(await outbox.push(WORKSHOP)).toBeFalse();
+    expect(await outbox.push(WORKSHOP)).toBe('idle');
 
     http.expectNone('/api/sync/push');
   });
@@ -140,5 +140,41 @@ describe('OutboxPush', () => {
 
     await expectAsync(pushed).toBeRejectedWithError(/did not answer for every change/);
     expect((await db.outbox.toArray()).map((row) => row.seq)).toEqual([rows[1]?.seq ?? 0]);
+  });
+
+  describe('when the account is no longer a member of the workshop', () => {
+    const unknown = { error: { code: 'workshop_unknown', message: 'You are not a member of this workshop.' } };
+
+    it("should mark every waiting change of that workshop refused with the reason, and leave others' alone", async () => {
+      await createBuilds(['Harbour', 'Canal lock']);
+      await createBuilds(['Quarry'], OTHER_WORKSHOP);
+      const [, second] = await db.outbox.where({ workshopId: WORKSHOP }).toArray();
+      await db.outbox.update(second?.seq ?? 0, { state: 'rejected', reason: REASON });
+
+      const pushed = outbox.push(WORKSHOP);
+      (await server.nextPush(WORKSHOP)).flush(unknown, { status: 404, statusText: 'Not Found' });
+
+      expect(await pushed).toBe('not-a-member');
+      const rows = await db.outbox.toArray();
+      expect(rows.map((row) => [row.workshopId, row.state, row.reason])).toEqual([
+        [WORKSHOP, 'rejected', NOT_A_MEMBER],
+        [WORKSHOP, 'rejected', REASON],
+        [OTHER_WORKSHOP, 'waiting', undefined],
+      ]);
+      expect(NOT_A_MEMBER.message).toBe(
+        'You are no longer a member of this workshop, so this change cannot be saved there.',
+      );
+    });
+
+    it('should treat any other 404 as a failed request, keeping the changes waiting', async () => {
+      await createBuilds(['Harbour']);
+
+      const pushed = outbox.push(WORKSHOP);
+      const missing = { error: { code: 'not_found', message: 'There is no API route POST /api/sync/push.' } };
+      (await server.nextPush()).flush(missing, { status: 404, statusText: 'Not Found' });
+
+      await expectAsync(pushed).toBeRejectedWith(jasmine.any(HttpErrorResponse));
+      expect((await db.outbox.toArray()).map((row) => row.state)).toEqual(['waiting']);
+    });
   });
 });

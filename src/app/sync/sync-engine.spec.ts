@@ -1,16 +1,20 @@
 import { provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
-import type { SessionView } from '@benchtide/shared';
+import type { Mutation, SessionView } from '@benchtide/shared';
 import { v7 } from 'uuid';
 import { AccountSession } from '../account/account-session';
 import { BENCH_DB_NAME, BenchDb } from './bench-db';
+import { fixesFor } from './change-fixes';
 import { OfflineStore } from './offline-store';
+import { NOT_A_MEMBER } from './outbox-push';
 import { retryDelayMs } from './retry-delay';
 import { SYNC_EVERY_MS, SyncEngine } from './sync-engine';
 import { dropDatabase, NOTHING_NEW, serverBuild, SyncServer, until } from './sync-testing';
 
 const WORKSHOP = v7();
+// Made after WORKSHOP, so its id sorts after it and it syncs second.
+const OTHER_WORKSHOP = v7();
 const SESSION: SessionView = {
   account: { id: v7(), email: 'ada@example.org', displayName: 'Ada Brush', emailVerified: true },
   workshops: [{ id: WORKSHOP, name: 'River Club', personal: false, role: 'owner', memberCount: 2 }],
@@ -18,6 +22,7 @@ const SESSION: SessionView = {
 const BUSY = { error: { code: 'unavailable', message: 'The server is busy. Try again in a moment.' } };
 const SIGNED_OUT = { error: { code: 'signed_out', message: 'You are signed out.' } };
 const REFUSED = { code: 'forbidden', message: 'Viewers cannot add builds.' };
+const STOCK_SHORT = { code: 'stock_short', message: 'The shelf holds 5 g of part A; this pour needs 9.9 g.' };
 
 describe('SyncEngine', () => {
   let http: HttpTestingController;
@@ -120,24 +125,92 @@ describe('SyncEngine', () => {
       await until(() => engine.lastError() === null, 'the retry to go through');
     });
 
-    it('should keep the outbox on a 401, ask the modeller to sign in, and not retry until asked', async () => {
+    it('should wait at least as long as a busy server asks before trying again', async () => {
       await createBuild();
 
       const synced = engine.syncNow();
-      (await server.nextPush()).flush(SIGNED_OUT, { status: 401, statusText: 'Unauthorized' });
+      const busy = { error: { ...BUSY.error, retryAfterMinutes: 1 } };
+      (await server.nextPush()).flush(busy, { status: 503, statusText: 'Service Unavailable' });
       await synced;
 
+      // The growing wait after a first failure is at most 5 s; the server asked for a minute.
+      jasmine.clock().tick(retryDelayMs(1, () => 1));
+      expect(engine.syncing()).toBeFalse();
+      jasmine.clock().tick(60_000 - retryDelayMs(1, () => 1) - 1);
+      expect(engine.syncing()).toBeFalse();
+      jasmine.clock().tick(1);
+      expect(engine.syncing()).toBeTrue();
+      await server.acceptAll();
+      await until(() => engine.lastError() === null, 'the retry to go through');
+    });
+
+    it('should keep the outbox on a 401, tell the app the session ended, and not retry until signed in again', async () => {
+      await createBuild();
+      const session = TestBed.inject(AccountSession);
+
+      const synced = engine.syncNow();
+      (await server.nextPush()).flush(SIGNED_OUT, { status: 401, statusText: 'Unauthorized' });
+      const asked = await until(() => http.match('/api/account')[0], 'the app to ask who is signed in');
+      asked.flush(SIGNED_OUT, { status: 401, statusText: 'Unauthorized' });
+      await synced;
+
+      expect(session.signedIn()).toBeFalse();
       expect(engine.sessionEnded()).toBeTrue();
       expect(engine.lastError()).toContain('Sign in again');
       expect(await db.outbox.count()).toBe(1);
       jasmine.clock().tick(5 * 60_000);
       expect(engine.syncing()).toBeFalse();
+      await engine.syncNow();
+      http.expectNone('/api/sync/push');
 
+      session.keep(SESSION);
       const again = engine.syncNow();
       server.answer(await server.nextPush());
       expect(await until(() => !engine.sessionEnded(), 'the session to count as back')).toBeTrue();
       (await server.nextPull()).flush(NOTHING_NEW);
       await again;
+      expect(await db.outbox.count()).toBe(0);
+    });
+  });
+
+  describe('when the account is no longer a member of a workshop', () => {
+    const BOTH: SessionView = {
+      ...SESSION,
+      workshops: [...SESSION.workshops, { ...SESSION.workshops[0]!, id: OTHER_WORKSHOP, name: 'Quarry Club' }],
+    };
+    const UNKNOWN = { error: { code: 'workshop_unknown', message: 'You are not a member of this workshop.' } };
+
+    beforeEach(() => jasmine.clock().install());
+    afterEach(() => jasmine.clock().uninstall());
+
+    it('should show its waiting changes as refused, still sync the others, and not keep trying', async () => {
+      const session = TestBed.inject(AccountSession);
+      session.keep(BOTH);
+      const store = TestBed.inject(OfflineStore);
+      await createBuild();
+      await createBuild();
+      await store.createBuild(OTHER_WORKSHOP, { name: 'Quarry', scaleRatio: 35, status: 'planning' });
+
+      const synced = engine.syncNow();
+      (await server.nextPush(WORKSHOP)).flush(UNKNOWN, { status: 404, statusText: 'Not Found' });
+      server.answer(await server.nextPush(OTHER_WORKSHOP));
+      (await server.nextPull(OTHER_WORKSHOP, 0)).flush(NOTHING_NEW);
+      // The account's workshops are asked for again, so the one it left drops out of the list.
+      (await until(() => http.match('/api/account')[0], 'the workshops to be asked for')).flush({
+        ...SESSION,
+        workshops: [BOTH.workshops[1]],
+      });
+      await synced;
+
+      expect(engine.lastError()).toBeNull();
+      expect(session.workshops().map((workshop) => workshop.id)).toEqual([OTHER_WORKSHOP]);
+      const rejected = await db.outbox.where('state').equals('rejected').toArray();
+      expect(rejected.map((row) => [row.workshopId, row.reason])).toEqual([
+        [WORKSHOP, NOT_A_MEMBER],
+        [WORKSHOP, NOT_A_MEMBER],
+      ]);
+      jasmine.clock().tick(5 * 60_000 - 1);
+      expect(engine.syncing()).toBeFalse();
     });
   });
 
@@ -198,6 +271,19 @@ describe('SyncEngine', () => {
     });
   });
 
+  it('should list the changes waiting to be sent, oldest first, without the refused ones', async () => {
+    const ids = [await createBuild(), await createBuild(), await createBuild()];
+    await until(() => engine.waiting().length === 3, 'three waiting changes');
+    const rows = engine.waiting();
+    expect(rows.map((row) => (row.mutation as { data: { id: string } }).data.id)).toEqual(ids);
+
+    await db.outbox.update(rows[1]!.seq, { state: 'rejected', reason: REFUSED });
+
+    await until(() => engine.waiting().length === 2, 'the refused change to leave the list');
+    expect(engine.waiting().map((row) => row.seq)).toEqual([rows[0]!.seq, rows[2]!.seq]);
+    expect(engine.rejected().map((row) => row.seq)).toEqual([rows[1]!.seq]);
+  });
+
   describe('rejected changes', () => {
     async function rejectFirst(): Promise<number> {
       const synced = engine.syncNow();
@@ -209,14 +295,69 @@ describe('SyncEngine', () => {
       return rejected.seq;
     }
 
-    it('should send a rejected change again when retried', async () => {
+    it('should send a rejected change again when retried, under a new id as the server keeps its refusal', async () => {
       await createBuild();
       const seq = await rejectFirst();
+      const refused = await db.outbox.get(seq);
 
       await engine.retry(seq);
 
-      await server.acceptAll();
+      const retried = await db.outbox.get(seq);
+      expect(retried?.state).toBe('waiting');
+      expect(retried?.reason).toBeUndefined();
+      expect(retried?.mutationId).not.toBe(refused?.mutationId ?? '');
+      expect(retried?.mutation).toEqual({ ...refused!.mutation, mutationId: retried!.mutationId });
+      const push = await server.nextPush();
+      expect(push.request.body.mutations).toEqual([retried?.mutation]);
+      server.answer(push);
+      (await server.nextPull()).flush(NOTHING_NEW);
       await until(() => engine.rejected().length === 0 && engine.waitingCount() === 0, 'the retried change to go');
+    });
+
+    it('should send a pour refused for short stock again noting the shortfall, when the modeller picks that fix', async () => {
+      const mutation: Mutation = {
+        type: 'pour.create',
+        mutationId: v7(),
+        data: {
+          id: v7(),
+          buildId: v7(),
+          materialId: v7(),
+          shape: { kind: 'rectangle', lengthMm: 100, widthMm: 50 },
+          depthMm: 4,
+          roomTempC: 20,
+          startAt: '2025-03-01T10:00:00Z',
+          whenShort: 'refuse',
+        },
+      };
+      const queuedAt = new Date().toISOString();
+      const row = { mutationId: mutation.mutationId, workshopId: WORKSHOP, mutation, queuedAt, attempts: 1, undo: [] };
+      const seq = await db.outbox.add({ ...row, state: 'rejected', reason: STOCK_SHORT });
+      const refused = await until(() => engine.rejected()[0], 'the refused pour');
+      const [fix] = fixesFor(refused);
+
+      await engine.retryWith(seq, fix!);
+
+      const push = await server.nextPush();
+      const [sent] = push.request.body.mutations as Mutation[];
+      expect(sent?.mutationId).not.toBe(mutation.mutationId);
+      expect(sent).toEqual({
+        ...mutation,
+        mutationId: sent!.mutationId,
+        data: { ...mutation.data, whenShort: 'record-shortfall' },
+      });
+      server.answer(push);
+      (await server.nextPull()).flush(NOTHING_NEW);
+      await until(() => engine.rejected().length === 0 && engine.waitingCount() === 0, 'the fixed pour to go');
+    });
+
+    it('should refuse a fix the rejected change does not offer, leaving it as it was', async () => {
+      await createBuild();
+      const seq = await rejectFirst();
+      const fix = { kind: 'record-shortfall', label: 'Log it anyway' } as const;
+
+      await expectAsync(engine.retryWith(seq, fix)).toBeRejectedWithError(/does not apply to this change/);
+
+      expect((await db.outbox.get(seq))?.state).toBe('rejected');
     });
 
     it('should remove a discarded creation and its record', async () => {

@@ -1,11 +1,14 @@
 import { HttpErrorResponse } from '@angular/common/http';
 import { DestroyRef, ErrorHandler, inject, Injectable, Injector, computed, signal } from '@angular/core';
 import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
+import type { Mutation } from '@benchtide/shared';
 import { fromEvent, merge, skip, timer } from 'rxjs';
+import { v7 } from 'uuid';
 import { AccountSession } from '../account/account-session';
 import { apiError } from '../core/api-error';
 import { Connectivity } from '../core/connectivity';
 import { BenchDb } from './bench-db';
+import { fixedMutation, type ChangeFix } from './change-fixes';
 import { ChangePull } from './change-pull';
 import { liveSignal, liveSignalOf } from './live-signal';
 import { OfflineStore } from './offline-store';
@@ -20,7 +23,8 @@ const FAILED = 'Syncing stopped on this device. It will try again.';
 /**
  * Keeps this device and the server in step: pushes each workshop's outbox, then pulls what changed. Runs
  * on demand, on start, every 3 minutes, when the connection returns, after each change queued here, and
- * after a failure with growing waits. One tab syncs at a time; the others see its writes live.
+ * after a failure with growing waits (never sooner than a busy server asked). One tab syncs at a time; the
+ * others see its writes live.
  */
 @Injectable({ providedIn: 'root' })
 export class SyncEngine {
@@ -45,6 +49,8 @@ export class SyncEngine {
   private current: Promise<void> | null = null;
   private followUp: Promise<void> | null = null;
   private failures = 0;
+  /** The longest wait a server asked for in the last sync (503 with retryAfterMinutes). */
+  private askedToWaitMs = 0;
   private retryTimer: ReturnType<typeof setTimeout> | undefined;
   private started = false;
 
@@ -55,6 +61,8 @@ export class SyncEngine {
   /** The server said the session ended; changes stay queued until the modeller signs in again. */
   readonly sessionEnded = this.ended.asReadonly();
   readonly waitingCount = liveSignal(() => this.db.outbox.where('state').equals('waiting').count(), 0);
+  /** Changes waiting to be sent, oldest first. */
+  readonly waiting = liveSignal<OutboxRow[]>(() => this.db.outbox.where('state').equals('waiting').toArray(), []);
   /** Changes the server refused, oldest first, each with its reason: they wait for retry or discard. */
   readonly rejected = liveSignal<OutboxRow[]>(() => this.db.outbox.where('state').equals('rejected').toArray(), []);
   /** When the current workshop last pulled, as an ISO time; null before its first sync on this device. */
@@ -88,12 +96,13 @@ export class SyncEngine {
   }
 
   /** Sends a rejected change again, after the modeller fixed what stood in its way. */
-  async retry(seq: number): Promise<void> {
-    await this.db.transaction('rw', this.db.outbox, async () => {
-      const row = await this.db.outbox.get(seq);
-      if (row?.state === 'rejected') await this.db.outbox.update(seq, { state: 'waiting', reason: undefined });
-    });
-    void this.syncNow();
+  retry(seq: number): Promise<void> {
+    return this.resend(seq, (row) => row.mutation);
+  }
+
+  /** Sends a rejected change again as one of its fixes (fixesFor) has it; throws for a fix it does not offer. */
+  retryWith(seq: number, fix: ChangeFix): Promise<void> {
+    return this.resend(seq, (row) => fixedMutation(row, fix));
   }
 
   /** Throws a rejected change away; a record it created goes with it, fields it changed return. */
@@ -101,11 +110,27 @@ export class SyncEngine {
     return this.store.discard(seq);
   }
 
+  /**
+   * The server keeps its answer to every mutation id, a refusal included, so a change sent again goes
+   * under a new id. It keeps its place in the queue.
+   */
+  private async resend(seq: number, change: (row: OutboxRow) => Mutation): Promise<void> {
+    await this.db.transaction('rw', this.db.outbox, async () => {
+      const row = await this.db.outbox.get(seq);
+      if (row?.state !== 'rejected') return;
+      const mutationId = v7();
+      const mutation = { ...change(row), mutationId };
+      await this.db.outbox.update(seq, { state: 'waiting', reason: undefined, mutationId, mutation });
+    });
+    void this.syncNow();
+  }
+
   private async run(): Promise<void> {
-    // Offline, there is nothing to try: the online event starts the next sync.
-    if (!navigator.onLine) return;
+    // Offline or signed out, there is nothing to try: coming online or signing in starts the next sync.
+    if (!navigator.onLine || !this.session.signedIn()) return;
     clearTimeout(this.retryTimer);
     this.running.set(true);
+    this.askedToWaitMs = 0;
     try {
       await this.withLock(() => this.syncAll());
       this.failures = 0;
@@ -113,8 +138,13 @@ export class SyncEngine {
     } catch (error) {
       if (!(error instanceof HttpErrorResponse)) this.errorHandler.handleError(error);
       this.error.set(plainWords(error));
-      if (isSessionEnd(error)) this.ended.set(true);
-      else this.retryLater();
+      if (isSessionEnd(error)) {
+        this.ended.set(true);
+        // Asking who is signed in lets the rest of the app learn that the session ended.
+        await this.session.refresh();
+      } else {
+        this.retryLater();
+      }
     } finally {
       this.running.set(false);
     }
@@ -125,15 +155,20 @@ export class SyncEngine {
     const pushTo = (await this.db.outbox.orderBy('workshopId').uniqueKeys()) as string[];
     const pullFrom = this.session.workshops().map((workshop) => workshop.id);
     let failure: unknown = null;
+    let left = false;
     for (const workshopId of new Set([...pushTo, ...pullFrom])) {
       try {
-        if (await this.outbox.push(workshopId)) this.ended.set(false);
-        if (!pullFrom.includes(workshopId)) continue;
+        const pushed = await this.outbox.push(workshopId);
+        if (pushed !== 'idle') this.ended.set(false);
+        // Its waiting changes are now shown as refused; there is nothing more to pull from it.
+        if (pushed === 'not-a-member') left = true;
+        if (pushed === 'not-a-member' || !pullFrom.includes(workshopId)) continue;
         await this.changes.pull(workshopId);
         this.ended.set(false);
       } catch (error) {
         if (isSessionEnd(error)) throw error;
         failure ??= error;
+        this.askedToWaitMs = Math.max(this.askedToWaitMs, askedToWaitMs(error));
         const state = await this.db.syncState.get(workshopId);
         await this.db.syncState.put({
           cursor: 0,
@@ -144,6 +179,8 @@ export class SyncEngine {
         });
       }
     }
+    // The account's list of workshops is out of date: ask for it again, so the one it left drops out.
+    if (left) await this.session.refresh();
     if (failure !== null) throw failure;
   }
 
@@ -156,12 +193,18 @@ export class SyncEngine {
   private retryLater(): void {
     this.failures += 1;
     clearTimeout(this.retryTimer);
-    this.retryTimer = setTimeout(() => void this.syncNow(), retryDelayMs(this.failures));
+    const delayMs = Math.max(retryDelayMs(this.failures), this.askedToWaitMs);
+    this.retryTimer = setTimeout(() => void this.syncNow(), delayMs);
   }
 }
 
 function isSessionEnd(error: unknown): boolean {
   return error instanceof HttpErrorResponse && error.status === 401;
+}
+
+/** How long a busy server asked devices to stay away (503 with retryAfterMinutes), or 0. */
+function askedToWaitMs(error: unknown): number {
+  return error instanceof HttpErrorResponse ? (apiError(error).retryAfterMinutes ?? 0) * 60_000 : 0;
 }
 
 function plainWords(error: unknown): string {
