@@ -1,14 +1,26 @@
-import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
+import {
+  ChangeDetectionStrategy,
+  Component,
+  DestroyRef,
+  Injector,
+  afterNextRender,
+  computed,
+  effect,
+  inject,
+  signal,
+} from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { AccountSession } from './account/account-session';
 import { AppUpdates } from './core/app-updates';
 import { Connectivity } from './core/connectivity';
+import { InstallOffer } from './core/install-offer';
 import { NAVIGATION } from './core/navigation';
+import { SyncStatus } from './sync/sync-status';
 
 @Component({
   selector: 'bt-root',
-  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatIconModule],
+  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatIconModule, SyncStatus],
   templateUrl: './app.html',
   styleUrl: './app.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -17,6 +29,8 @@ export class App {
   private readonly connectivity = inject(Connectivity);
   protected readonly updates = inject(AppUpdates);
   private readonly session = inject(AccountSession);
+  private readonly injector = inject(Injector);
+  private readonly rendered = signal(false);
 
   protected readonly navigation = NAVIGATION;
   protected readonly online = this.connectivity.online;
@@ -25,4 +39,21 @@ export class App {
   protected readonly initial = computed(
     () => Array.from(this.account()?.displayName.trim() ?? '')[0]?.toUpperCase() ?? '?',
   );
+
+  constructor() {
+    // Created now: the browser's offer to install comes once, early.
+    inject(InstallOffer);
+    afterNextRender(() => this.rendered.set(true));
+    // Syncing starts once the first screen is up and someone is signed in, from a chunk of its own.
+    let started = false;
+    let destroyed = false;
+    inject(DestroyRef).onDestroy(() => (destroyed = true));
+    effect(() => {
+      if (started || !this.rendered() || this.account() === null) return;
+      started = true;
+      void import('./sync/start-sync').then(({ startSync }) => {
+        if (!destroyed) startSync(this.injector);
+      });
+    });
+  }
 }

@@ -53,4 +53,16 @@ describe('StorageHealth', () => {
     expect(health.persisted()).toBeFalse();
     expect(health.usage()).toBeNull();
   });
+
+  it('should ask again when the modeller taps to keep the data, after the browser said no', async () => {
+    spyOn(navigator.storage, 'persisted').and.resolveTo(false);
+    const persist = spyOn(navigator.storage, 'persist').and.resolveTo(false);
+    spyOn(navigator.storage, 'estimate').and.resolveTo({ usage: 10, quota: 100 });
+    await health.check();
+    persist.and.resolveTo(true);
+
+    expect(await health.keep()).toBeTrue();
+    expect(persist).toHaveBeenCalledTimes(2);
+    expect(health.persisted()).toBeTrue();
+  });
 });

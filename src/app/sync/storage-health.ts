@@ -22,6 +22,13 @@ export class StorageHealth {
     return this.asked;
   }
 
+  /** Asks again, from the modeller's own tap (some browsers only ask then); resolves whether the data is kept. */
+  async keep(): Promise<boolean> {
+    await this.askToPersist();
+    await this.measure();
+    return this.isPersisted() === true;
+  }
+
   /** Reads how much space is used and offered; call again after a large sync. */
   async measure(): Promise<void> {
     const storage = storageManager();

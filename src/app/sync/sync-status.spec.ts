@@ -3,6 +3,7 @@ import { provideHttpClient } from '@angular/common/http';
 import { signal } from '@angular/core';
 import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { MatIconHarness } from '@angular/material/icon/testing';
+import { provideRouter } from '@angular/router';
 import { BenchIcons } from '../core/bench-icons';
 import { SyncEngine } from './sync-engine';
 import { SyncStatus } from './sync-status';
@@ -16,7 +17,6 @@ class EngineSignals {
   readonly rejected = signal<OutboxRow[]>([]);
   readonly sessionEnded = signal(false);
   readonly lastSyncedAt = signal<string | null>(null);
-  readonly syncNow = jasmine.createSpy('syncNow').and.resolveTo();
 }
 
 const REJECTED = { seq: 4, state: 'rejected', reason: { code: 'forbidden', message: 'Viewers cannot add builds.' } };
@@ -29,7 +29,7 @@ describe('SyncStatus', () => {
     engine = new EngineSignals();
     TestBed.configureTestingModule({
       imports: [SyncStatus],
-      providers: [provideHttpClient(), { provide: SyncEngine, useValue: engine }],
+      providers: [provideHttpClient(), provideRouter([]), { provide: SyncEngine, useValue: engine }],
     });
     TestBed.inject(BenchIcons).register();
     fixture = TestBed.createComponent(SyncStatus);
@@ -37,7 +37,7 @@ describe('SyncStatus', () => {
 
   async function shown(): Promise<{ label: string; icon: string | null; attention: boolean }> {
     await fixture.whenStable();
-    const chip = fixture.nativeElement.querySelector('button') as HTMLButtonElement;
+    const chip = fixture.nativeElement.querySelector('a') as HTMLAnchorElement;
     const icon = await TestbedHarnessEnvironment.loader(fixture).getHarness(MatIconHarness);
     return {
       label: chip.querySelector('.label')?.textContent?.trim() ?? '',
@@ -84,7 +84,7 @@ describe('SyncStatus', () => {
 
   describe('for screen readers', () => {
     function description(): string {
-      const chip = fixture.nativeElement.querySelector('button') as HTMLButtonElement;
+      const chip = fixture.nativeElement.querySelector('a') as HTMLAnchorElement;
       const id = chip.getAttribute('aria-describedby') ?? '';
       return fixture.nativeElement.querySelector(`[id="${id}"]`)?.textContent ?? '';
     }
@@ -103,30 +103,28 @@ describe('SyncStatus', () => {
 
       expect(description()).toBe(
         'Sign in again to send the changes waiting on this device. 2 changes could not be saved. ' +
-          'Last synced at 14:05, 1 Mar. Select to sync now.',
+          'Last synced at 14:05, 1 Mar. Opens the changes kept on this device.',
       );
     });
 
     it('should say when this device has not synced yet', async () => {
       await fixture.whenStable();
 
-      expect(description()).toBe('Not synced yet on this device. Select to sync now.');
+      expect(description()).toBe('Not synced yet on this device. Opens the changes kept on this device.');
     });
   });
 
   it('should be at least 48 px high, to be easy to tap', async () => {
     await fixture.whenStable();
 
-    const chip = fixture.nativeElement.querySelector('button') as HTMLButtonElement;
+    const chip = fixture.nativeElement.querySelector('a') as HTMLAnchorElement;
     expect(chip.getBoundingClientRect().height).toBeGreaterThanOrEqual(48);
     expect(chip.getBoundingClientRect().width).toBeGreaterThanOrEqual(48);
   });
 
-  it('should sync now when selected', async () => {
+  it('should open the list of changes on this device', async () => {
     await fixture.whenStable();
 
-    (fixture.nativeElement.querySelector('button') as HTMLButtonElement).click();
-
-    expect(engine.syncNow).toHaveBeenCalledTimes(1);
+    expect((fixture.nativeElement.querySelector('a') as HTMLAnchorElement).getAttribute('href')).toBe('/device');
   });
 });

@@ -1,5 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
+import { RouterLink } from '@angular/router';
 import { format } from 'date-fns';
 import { SyncEngine } from './sync-engine';
 
@@ -11,22 +12,21 @@ interface Status {
 
 let nextId = 0;
 
-/** Where this device stands with the server, in an icon and words; selecting it syncs now. */
+/** Where this device stands with the server, in an icon and words; it opens the list of this device's changes. */
 @Component({
   selector: 'bt-sync-status',
-  imports: [MatIconModule],
+  imports: [MatIconModule, RouterLink],
   template: `
-    <button
-      type="button"
+    <a
       class="chip"
+      routerLink="/device"
       [class.attention]="status().attention"
       [attr.aria-busy]="syncing()"
       [attr.aria-describedby]="hintId"
-      (click)="syncNow()"
     >
       <mat-icon [svgIcon]="status().icon" aria-hidden="true" />
       <span class="label" aria-live="polite">{{ status().label }}</span>
-    </button>
+    </a>
     <span class="hint" [id]="hintId">{{ hint() }}</span>
   `,
   styles: `
@@ -45,7 +45,8 @@ let nextId = 0;
       background: var(--mat-sys-surface-container);
       color: var(--mat-sys-on-surface);
       font: var(--mat-sys-label-large);
-      cursor: pointer;
+      white-space: nowrap;
+      text-decoration: none;
     }
     .chip.attention {
       border-color: transparent;
@@ -91,13 +92,9 @@ export class SyncStatus {
       this.engine.sessionEnded() ? 'Sign in again to send the changes waiting on this device.' : '',
       rejected === 1 ? '1 change could not be saved.' : rejected > 1 ? `${rejected} changes could not be saved.` : '',
       syncedAt === null ? 'Not synced yet on this device.' : `Last synced at ${format(syncedAt, 'HH:mm, d MMM')}.`,
-      'Select to sync now.',
+      'Opens the changes kept on this device.',
     ]
       .filter((part) => part !== '')
       .join(' ');
   });
-
-  protected syncNow(): void {
-    void this.engine.syncNow();
-  }
 }
