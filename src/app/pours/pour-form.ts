@@ -53,6 +53,7 @@ export function createPourForm() {
 
 export type PourForm = ReturnType<typeof createPourForm>;
 export type PourFormValue = ReturnType<PourForm['getRawValue']>;
+type ShapeFieldValues = Pick<PourFormValue, 'shapeKind' | 'length' | 'width' | 'diameter' | 'area' | 'outline'>;
 
 /** Area typed in: cm² for metric, in² for imperial. */
 export interface AreaUnit {
@@ -85,7 +86,7 @@ export function parseOutline(outline: string, units: DisplayUnits) {
     });
 }
 
-function shapeFrom(value: PourFormValue, units: DisplayUnits): PourShapeInput {
+export function shapeFrom(value: ShapeFieldValues, units: DisplayUnits): PourShapeInput {
   const mm = (field: string) => toMm(number(field), units.length);
   switch (value.shapeKind) {
     case 'rectangle':
@@ -137,8 +138,27 @@ export function toPlanRequest(
 }
 
 /** Shown numbers are trimmed so a converted value reads like one a person typed. */
-function shown(value: number): string {
+export function fieldText(value: number): string {
   return Number.isFinite(value) ? String(Math.round(value * 1000) / 1000) : '';
+}
+
+/** A stored shape (SI) as the fields show it, in display units: how a repeated pour fills the form. */
+export function shapeFields(shape: PourShapeInput, units: DisplayUnits): Partial<PourFormValue> {
+  const length = (mm: number) => fieldText(fromMm(mm, units.length));
+  switch (shape.kind) {
+    case 'rectangle':
+    case 'ellipse':
+      return { shapeKind: shape.kind, length: length(shape.lengthMm), width: length(shape.widthMm) };
+    case 'circle':
+      return { shapeKind: 'circle', diameter: length(shape.diameterMm) };
+    case 'polygon':
+      return {
+        shapeKind: 'polygon',
+        outline: shape.points.map((point) => `${length(point.xMm)}, ${length(point.yMm)}`).join('\n'),
+      };
+    case 'area':
+      return { shapeKind: 'area', area: fieldText(shape.areaMm2 / areaUnitFor(units).mm2) };
+  }
 }
 
 /** The data-sheet fields of a preset, in display units. */
@@ -146,21 +166,21 @@ export function presetFields(presetId: string, units: DisplayUnits): Partial<Pou
   const preset = findMaterialPreset(presetId);
   if (!preset) return {};
   const sheet = preset.dataSheet;
-  const optional = (value: number | undefined, scale = 1) => (value === undefined ? '' : shown(value / scale));
+  const optional = (value: number | undefined, scale = 1) => (value === undefined ? '' : fieldText(value / scale));
   return {
     basis: sheet.mixRatio.basis,
-    partA: shown(sheet.mixRatio.partA),
+    partA: fieldText(sheet.mixRatio.partA),
     partB: optional(sheet.mixRatio.partB),
-    densityA: shown(sheet.densityAGPerMl),
+    densityA: fieldText(sheet.densityAGPerMl),
     densityB: optional(sheet.densityBGPerMl),
-    potLifeMin: shown(sheet.potLifeMin),
-    recoatH: shown(sheet.recoatMin / 60),
+    potLifeMin: fieldText(sheet.potLifeMin),
+    recoatH: fieldText(sheet.recoatMin / 60),
     recoatMaxH: optional(sheet.recoatMaxMin, 60),
-    demouldH: shown(sheet.demouldMin / 60),
-    fullCureH: shown(sheet.fullCureMin / 60),
-    referenceTemp: shown(fromCelsius(sheet.referenceTempC, units.temperature)),
-    minCureTemp: shown(fromCelsius(sheet.minCureTempC, units.temperature)),
-    maxLayer: shown(fromMm(sheet.maxLayerMm, units.length)),
+    demouldH: fieldText(sheet.demouldMin / 60),
+    fullCureH: fieldText(sheet.fullCureMin / 60),
+    referenceTemp: fieldText(fromCelsius(sheet.referenceTempC, units.temperature)),
+    minCureTemp: fieldText(fromCelsius(sheet.minCureTempC, units.temperature)),
+    maxLayer: fieldText(fromMm(sheet.maxLayerMm, units.length)),
   };
 }
 
@@ -172,7 +192,7 @@ export function convertFields(value: PourFormValue, from: DisplayUnits, to: Disp
   const change: Partial<PourFormValue> = {};
   const convert = (field: string, fn: (n: number) => number) => {
     const parsed = parseDecimal(field);
-    return parsed === null ? field : shown(fn(parsed));
+    return parsed === null ? field : fieldText(fn(parsed));
   };
   for (const key of LENGTH_FIELDS) change[key] = convert(value[key], (n) => fromMm(toMm(n, from.length), to.length));
   for (const key of TEMPERATURE_FIELDS) {

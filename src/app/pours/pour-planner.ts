@@ -2,7 +2,6 @@ import { ChangeDetectionStrategy, Component, computed, effect, inject, untracked
 import { toSignal } from '@angular/core/rxjs-interop';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatCardModule } from '@angular/material/card';
-import { MatChipsModule } from '@angular/material/chips';
 import { MatExpansionModule } from '@angular/material/expansion';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
@@ -21,16 +20,9 @@ import { DevicePreferences, SCALE_RESOLUTIONS_G } from '../core/device-preferenc
 import { UnitSystemToggle } from '../core/unit-system-toggle';
 import { PourPlanDraft } from './pour-plan-draft';
 import { PourPlanSheet } from './pour-plan-sheet';
-import { areaUnitFor, convertFields, presetFields, toPlanRequest, type ShapeKind } from './pour-form';
+import { FeatureShapeFields } from './feature-shape-fields';
+import { convertFields, presetFields, toPlanRequest } from './pour-form';
 import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';
-
-const SHAPES: readonly { kind: ShapeKind; label: string }[] = [
-  { kind: 'rectangle', label: 'Rectangle' },
-  { kind: 'circle', label: 'Circle' },
-  { kind: 'ellipse', label: 'Oval' },
-  { kind: 'polygon', label: 'Traced outline' },
-  { kind: 'area', label: 'Area I know' },
-];
 
 function sameUnits(a: DisplayUnits, b: DisplayUnits): boolean {
   return a.length === b.length && a.volume === b.volume && a.mass === b.mass && a.temperature === b.temperature;
@@ -42,13 +34,13 @@ function sameUnits(a: DisplayUnits, b: DisplayUnits): boolean {
   imports: [
     ReactiveFormsModule,
     MatCardModule,
-    MatChipsModule,
     MatExpansionModule,
     MatFormFieldModule,
     MatInputModule,
     MatSelectModule,
     UnitSystemToggle,
     PourPlanSheet,
+    FeatureShapeFields,
   ],
   templateUrl: './pour-planner.html',
   styleUrl: './pour-planner.scss',
@@ -59,7 +51,6 @@ export class PourPlanner {
   private readonly draft = inject(PourPlanDraft);
 
   protected readonly form = this.draft.form;
-  protected readonly shapes = SHAPES;
   protected readonly presets = MATERIAL_PRESETS;
   protected readonly resolutions = SCALE_RESOLUTIONS_G;
 
@@ -71,9 +62,7 @@ export class PourPlanner {
     const units = this.units();
     return {
       length: UNIT_LABELS[units.length],
-      volume: UNIT_LABELS[units.volume],
       temperature: TEMPERATURE_LABELS[units.temperature],
-      area: areaUnitFor(units).label,
     };
   });
   protected readonly scaleResolutionG = computed(() => this.preferences.values().scaleResolutionG);
@@ -85,7 +74,6 @@ export class PourPlanner {
     ),
     { requireSync: true },
   );
-  protected readonly shapeKind = computed(() => this.formValue().shapeKind);
   protected readonly twoPart = computed(() => (Number(this.formValue().partB.replace(',', '.')) || 0) > 0);
 
   protected readonly result = computed(() =>

@@ -1,0 +1,121 @@
+import { inject, Injectable } from '@angular/core';
+import {
+  pourMilestones,
+  remainingByContainer,
+  shelfWarnings,
+  type MixAmounts,
+  type PourMilestone,
+  type ShelfWarning,
+} from '@benchtide/shared';
+import { format } from 'date-fns';
+import { AccountSession } from '../account/account-session';
+import { BenchDb } from '../sync/bench-db';
+import { liveSignalOf } from '../sync/live-signal';
+
+/** A pour on the bench whose cure is still running (or finished within the last hours). */
+export interface PourOnBench {
+  readonly id: string;
+  readonly buildId: string;
+  readonly buildName: string;
+  readonly materialName: string;
+  readonly note: string;
+  readonly startMs: number;
+  readonly layerCount: number;
+  readonly milestones: readonly PourMilestone[];
+  readonly mix: MixAmounts;
+}
+
+export interface ShelfNotice extends ShelfWarning {
+  readonly materialName: string;
+  readonly unit: 'g' | 'mL';
+}
+
+/** A fully cured pour stays on the bench this long, so the modeller sees it done. */
+const KEEP_AFTER_CURE_MS = 12 * 3_600_000;
+
+/** What the bench shows for the current workshop: the pours curing now and the shelf's warnings. */
+@Injectable({ providedIn: 'root' })
+export class BenchToday {
+  private readonly db = inject(BenchDb);
+  private readonly session = inject(AccountSession);
+
+  readonly pours = liveSignalOf(
+    this.session.currentWorkshopId,
+    (workshopId) => (workshopId === null ? [] : this.runningPours(workshopId)),
+    [] as PourOnBench[],
+  );
+  readonly shelf = liveSignalOf(
+    this.session.currentWorkshopId,
+    (workshopId) => (workshopId === null ? [] : this.shelfNotices(workshopId)),
+    [] as ShelfNotice[],
+  );
+
+  private async runningPours(workshopId: string): Promise<PourOnBench[]> {
+    const since = Date.now() - KEEP_AFTER_CURE_MS;
+    const pours = await this.db.pours
+      .where('workshopId')
+      .equals(workshopId)
+      .filter((pour) => pour.deletedAt === null && pour.plan !== null && pour.plan.cure.fullCureAtMs > since)
+      .toArray();
+    const builds = await this.names(
+      this.db.builds,
+      pours.map((pour) => pour.buildId),
+    );
+    const materials = await this.names(
+      this.db.materials,
+      pours.map((pour) => pour.materialId),
+    );
+    return pours
+      .map((pour) => ({
+        id: pour.id,
+        buildId: pour.buildId,
+        buildName: builds.get(pour.buildId) ?? 'A build not on this device',
+        materialName: materials.get(pour.materialId) ?? 'a material not on this device',
+        note: pour.note,
+        startMs: Date.parse(pour.startAt),
+        layerCount: pour.plan!.layers.count,
+        milestones: pourMilestones(pour.plan!.cure),
+        mix: pour.plan!.mix,
+      }))
+      .sort((a, b) => a.startMs - b.startMs);
+  }
+
+  private async shelfNotices(workshopId: string): Promise<ShelfNotice[]> {
+    const containers = await this.db.containers
+      .where('workshopId')
+      .equals(workshopId)
+      .filter((container) => container.deletedAt === null)
+      .toArray();
+    const entries = await this.db.ledgerEntries
+      .where('workshopId')
+      .equals(workshopId)
+      .filter((entry) => entry.deletedAt === null)
+      .toArray();
+    const materials = new Map(
+      (await this.db.materials.where('workshopId').equals(workshopId).toArray()).map((material) => [
+        material.id,
+        material,
+      ]),
+    );
+    const remaining = remainingByContainer(entries.map((entry) => ({ ...entry, atMs: Date.parse(entry.at) })));
+    const units = new Map(containers.map((container) => [container.id, container.unit]));
+    return shelfWarnings(
+      containers,
+      remaining,
+      format(new Date(), 'yyyy-MM-dd'),
+      (id) => materials.get(id)?.shelfLifeOpenedDays,
+    ).map((warning) => ({
+      ...warning,
+      materialName: materials.get(warning.materialId)?.name ?? 'A material',
+      unit: units.get(warning.containerId) ?? 'g',
+    }));
+  }
+
+  private async names(
+    table: { bulkGet(ids: string[]): Promise<({ id: string; name: string } | undefined)[]> },
+    ids: readonly string[],
+  ): Promise<Map<string, string>> {
+    const found = await table.bulkGet([...new Set(ids)]);
+    return new Map(found.filter((row) => row !== undefined).map((row) => [row.id, row.name]));
+  }
+}
