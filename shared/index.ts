@@ -1,5 +1,6 @@
 export * from './account-schemas.js';
 export * from './cure.js';
+export * from './cost-summary.js';
 export * from './domain-schemas.js';
 export * from './format.js';
 export * from './layers.js';

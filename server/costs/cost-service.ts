@@ -2,25 +2,9 @@ import { and, eq, isNull, sql } from 'drizzle-orm';
 import type { ServerContext } from '../context.js';
 import { builds, costTotals, materials } from '../db/schema/index.js';
 import { authorize } from '../workshops/workshop-service.js';
+import { summariseCosts, type CostReport } from '../../shared/cost-summary.js';
 
-/** One line of the cost report: money in integer minor units of one currency. */
-export interface CostLine {
-  key: string;
-  label: string;
-  currency: string;
-  costMinor: number;
-}
-
-export interface CostReport {
-  /** What the builds used, per build. */
-  byBuild: CostLine[];
-  /** What was used and wasted, per material. */
-  byMaterial: CostLine[];
-  /** What was used and wasted, per calendar month (YYYY-MM). */
-  byMonth: CostLine[];
-  /** Everything used and wasted, per currency. */
-  total: CostLine[];
-}
+export type { CostLine, CostReport } from '../../shared/cost-summary.js';
 
 const NO_BUILD = '00000000-0000-0000-0000-000000000000';
 
@@ -45,25 +29,10 @@ export async function costReport(ctx: ServerContext, userId: string, workshopId:
     .innerJoin(materials, eq(materials.id, costTotals.materialId))
     .where(and(eq(costTotals.workshopId, workshopId), sql`${costTotals.costMinor} <> 0`));
 
-  const group = (keyOf: (row: (typeof rows)[number]) => [string, string] | null): CostLine[] => {
-    const lines = new Map<string, CostLine>();
-    for (const row of rows) {
-      const keyed = keyOf(row);
-      if (!keyed) continue;
-      const [key, label] = keyed;
-      const line = lines.get(`${key}|${row.currency}`) ?? { key, label, currency: row.currency, costMinor: 0 };
-      line.costMinor += row.costMinor;
-      lines.set(`${key}|${row.currency}`, line);
-    }
-    return [...lines.values()].filter((line) => line.costMinor !== 0).sort((a, b) => a.label.localeCompare(b.label));
-  };
-  return {
-    // Waste (no build) and uses of builds since deleted count for materials and months, not for a build.
-    byBuild: group((row) => (row.buildId !== NO_BUILD && row.buildName !== null ? [row.buildId, row.buildName] : null)),
-    byMaterial: group((row) => [row.materialId, row.materialName]),
-    byMonth: group((row) => [row.month, row.month]),
-    total: group((row) => [row.currency, row.currency]),
-  };
+  // Waste (no build) and uses of builds since deleted count for materials and months, not for a build.
+  return summariseCosts(
+    rows.map((row) => ({ ...row, buildId: row.buildId === NO_BUILD || row.buildName === null ? null : row.buildId })),
+  );
 }
 
 /** Minor units as the currency writes them: 1234 EUR cents is "12.34", 500 JPY is "500". */
