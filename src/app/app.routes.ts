@@ -14,6 +14,26 @@ export const routes: Routes = [
     loadComponent: () => import('./scale-tools/scale-tools').then((m) => m.ScaleTools),
   },
   {
+    path: 'builds',
+    title: 'Builds · Benchtide',
+    loadComponent: () => import('./builds/build-list').then((m) => m.BuildList),
+  },
+  {
+    path: 'builds/new',
+    title: 'New build · Benchtide',
+    loadComponent: () => import('./builds/build-editor').then((m) => m.BuildEditor),
+  },
+  {
+    path: 'builds/:buildId',
+    title: 'Build · Benchtide',
+    loadComponent: () => import('./builds/build-page').then((m) => m.BuildPage),
+  },
+  {
+    path: 'builds/:buildId/edit',
+    title: 'Edit build · Benchtide',
+    loadComponent: () => import('./builds/build-editor').then((m) => m.BuildEditor),
+  },
+  {
     path: 'workshop',
     title: 'Workshop · Benchtide',
     canActivate: [signedInGuard],

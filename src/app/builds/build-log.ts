@@ -1,0 +1,206 @@
+import { Injectable, Injector, computed, inject, signal, type Signal } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
+import { buildPatchSchema, may, stepPatchSchema, type NewBuild, type NewStep } from '@benchtide/shared';
+import { interval, map, startWith } from 'rxjs';
+import type { z } from 'zod';
+import { AccountSession } from '../account/account-session';
+import { LocalRecords } from '../sync/local-records';
+import { OfflineStore } from '../sync/offline-store';
+import type { LocalBuild, LocalContainer, LocalLedgerEntry, LocalPour, LocalStep } from '../sync/synced-records';
+import { liveByKey } from './live-by-key';
+
+/** An amount of money in the minor unit (cents, pence) of one currency; currencies are never added together. */
+export interface MoneySum {
+  readonly currency: string;
+  readonly minor: number;
+}
+
+/** A build as its card on the Builds list shows it. */
+export interface BuildCard {
+  readonly build: LocalBuild;
+  /** The latest of the build's own change, its steps and its pours that have already happened. */
+  readonly lastActivityAt: string;
+  readonly costs: readonly MoneySum[];
+}
+
+/** One build and what hangs off it, followed live. */
+export interface FollowedBuild {
+  /** Undefined until this device's records have been read; null when the build is not among them. */
+  readonly build: Signal<LocalBuild | null | undefined>;
+  readonly steps: Signal<LocalStep[]>;
+  readonly pours: Signal<LocalPour[]>;
+  readonly costs: Signal<readonly MoneySum[]>;
+}
+
+/** A new record as a form gives it: the store makes the id unless the form made it already. */
+type Draft<T> = Omit<T, 'id'> & { id?: string };
+type StepDraft = Omit<Draft<NewStep>, 'buildId'>;
+
+const MINUTE_MS = 60_000;
+
+/**
+ * The builds of the workshop the modeller is working in, read from this device's records and written
+ * through the offline store, so the screens work the same with or without a connection. Provided by each
+ * Builds screen: the live queries it opens end with the screen.
+ */
+@Injectable()
+export class BuildLog {
+  private readonly session = inject(AccountSession);
+  private readonly records = inject(LocalRecords);
+  private readonly store = inject(OfflineStore);
+  private readonly injector = inject(Injector);
+
+  readonly signedIn = this.session.signedIn;
+  readonly workshop = this.session.currentWorkshop;
+  readonly workshopId = this.session.currentWorkshopId;
+  /** What the role allows; the server refuses the rest either way. */
+  readonly canWrite = computed(() => may(this.workshop()?.role, 'write-builds'));
+  readonly builds = this.records.builds(this.workshopId);
+  /** False until the first answer from this device's records, so no screen says "none" before it has looked. */
+  readonly loaded: Signal<boolean>;
+  readonly materials = this.records.materials(this.workshopId);
+  /** Now, a minute at a time, for "2 hours ago". */
+  readonly now = toSignal(
+    interval(MINUTE_MS).pipe(
+      startWith(0),
+      map(() => Date.now()),
+    ),
+    { requireSync: true },
+  );
+
+  private costsByPour: Signal<ReadonlyMap<string, readonly MoneySum[]>> | null = null;
+
+  constructor() {
+    // The live list starts as the empty list it was given; any answer from the records is a new array.
+    const unread = this.builds();
+    this.loaded = computed(() => this.builds() !== unread);
+  }
+
+  /** Every build of the workshop with its last activity and cost so far, newest activity first. */
+  cards(): Signal<BuildCard[]> {
+    const buildIds = computed(() => this.builds().map((build) => build.id), { equal: sameKeys });
+    const steps = liveByKey(buildIds, (id, injector) => this.records.steps(signal(id), injector), this.injector);
+    const pours = liveByKey(buildIds, (id, injector) => this.records.pours(signal(id), injector), this.injector);
+    const costsByPour = this.pourCosts();
+    return computed(() => {
+      const now = this.now();
+      const cards = this.builds().map((build) => {
+        const buildPours = pours().get(build.id) ?? [];
+        return {
+          build,
+          lastActivityAt: lastActivity(build, steps().get(build.id) ?? [], buildPours, now),
+          costs: costOf(buildPours, costsByPour()),
+        };
+      });
+      return cards.sort((a, b) => Date.parse(b.lastActivityAt) - Date.parse(a.lastActivityAt));
+    });
+  }
+
+  /** One build of the current workshop, with its log, its pours and what they cost. */
+  follow(buildId: Signal<string | null>): FollowedBuild {
+    const pours = this.records.pours(buildId, this.injector);
+    const costsByPour = this.pourCosts();
+    return {
+      build: computed(() => {
+        if (!this.loaded()) return undefined;
+        const id = buildId();
+        return this.builds().find((build) => build.id === id) ?? null;
+      }),
+      steps: this.records.steps(buildId, this.injector),
+      pours,
+      costs: computed(() => costOf(pours(), costsByPour())),
+    };
+  }
+
+  async createBuild(draft: Draft<NewBuild>): Promise<string> {
+    return this.store.createBuild(this.requireWorkshop(), draft);
+  }
+  async patchBuild(id: string, patch: z.input<typeof buildPatchSchema>): Promise<void> {
+    return this.store.patchBuild(this.requireWorkshop(), id, patch);
+  }
+  async deleteBuild(id: string): Promise<void> {
+    return this.store.deleteBuild(this.requireWorkshop(), id);
+  }
+  async createStep(buildId: string, draft: StepDraft): Promise<string> {
+    return this.store.createStep(this.requireWorkshop(), { ...draft, buildId });
+  }
+  async patchStep(id: string, patch: z.input<typeof stepPatchSchema>): Promise<void> {
+    return this.store.patchStep(this.requireWorkshop(), id, patch);
+  }
+  async deleteStep(id: string): Promise<void> {
+    return this.store.deleteStep(this.requireWorkshop(), id);
+  }
+
+  /**
+   * What each pour cost, from the stock books of the workshop's containers: the records on this device are
+   * kept by material, container and entry, so the books are read container by container. Made once per screen.
+   */
+  private pourCosts(): Signal<ReadonlyMap<string, readonly MoneySum[]>> {
+    if (this.costsByPour !== null) return this.costsByPour;
+    const materialIds = computed(() => this.materials().map((material) => material.id), { equal: sameKeys });
+    const containersByMaterial = liveByKey(
+      materialIds,
+      (id, injector) => this.records.containers(signal(id), injector),
+      this.injector,
+    );
+    const containers = computed(() => [...containersByMaterial().values()].flat());
+    const containerIds = computed(() => containers().map((container) => container.id), { equal: sameKeys });
+    const books = liveByKey(containerIds, (id, injector) => this.records.ledger(signal(id), injector), this.injector);
+    this.costsByPour = computed(() => pourCostsFrom(containers(), books()));
+    return this.costsByPour;
+  }
+
+  private requireWorkshop(): string {
+    const workshopId = this.workshopId();
+    if (workshopId === null) throw new Error('Sign in and choose a workshop before changing builds.');
+    return workshopId;
+  }
+}
+
+function sameKeys(a: readonly string[], b: readonly string[]): boolean {
+  return a.length === b.length && a.every((key, index) => key === b[index]);
+}
+
+/** Times still to come (a pour planned for tomorrow) are not activity yet. */
+function lastActivity(build: LocalBuild, steps: readonly LocalStep[], pours: readonly LocalPour[], nowMs: number) {
+  let latest = build.updatedAt;
+  const times = [...steps.map((step) => step.happenedAt), ...pours.map((pour) => pour.startAt)];
+  for (const at of times) {
+    const ms = Date.parse(at);
+    if (ms <= nowMs && ms > Date.parse(latest)) latest = at;
+  }
+  return latest;
+}
+
+function pourCostsFrom(
+  containers: readonly LocalContainer[],
+  books: ReadonlyMap<string, readonly LocalLedgerEntry[]>,
+): ReadonlyMap<string, readonly MoneySum[]> {
+  const currencyOf = new Map(containers.map((container) => [container.id, container.currency]));
+  const byPour = new Map<string, MoneySum[]>();
+  for (const entries of books.values()) {
+    for (const entry of entries) {
+      const currency = currencyOf.get(entry.containerId);
+      if (entry.pourId === null || currency === undefined) continue;
+      byPour.set(entry.pourId, addMoney(byPour.get(entry.pourId) ?? [], { currency, minor: entry.costMinor }));
+    }
+  }
+  return byPour;
+}
+
+function costOf(pours: readonly LocalPour[], costsByPour: ReadonlyMap<string, readonly MoneySum[]>): MoneySum[] {
+  let total: MoneySum[] = [];
+  for (const pour of pours) {
+    for (const sum of costsByPour.get(pour.id) ?? []) total = addMoney(total, sum);
+  }
+  return total.sort((a, b) => a.currency.localeCompare(b.currency));
+}
+
+function addMoney(sums: readonly MoneySum[], add: MoneySum): MoneySum[] {
+  const found = sums.some((sum) => sum.currency === add.currency);
+  return found
+    ? sums.map((sum) =>
+        sum.currency === add.currency ? { currency: sum.currency, minor: sum.minor + add.minor } : sum,
+      )
+    : [...sums, add];
+}
