@@ -14,6 +14,7 @@ import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { AccountSession } from './account/account-session';
 import { AppUpdates } from './core/app-updates';
 import { Connectivity } from './core/connectivity';
+import { DevicePreferences } from './core/device-preferences';
 import { InstallOffer } from './core/install-offer';
 import { NAVIGATION } from './core/navigation';
 import { SyncStatus } from './sync/sync-status';
@@ -41,8 +42,9 @@ export class App {
   );
 
   constructor() {
-    // Created now: the browser's offer to install comes once, early.
+    // Created now: the browser's offer to install comes once, early; the chosen theme applies at once.
     inject(InstallOffer);
+    inject(DevicePreferences);
     afterNextRender(() => this.rendered.set(true));
     // Syncing starts once the first screen is up and someone is signed in, from a chunk of its own.
     let started = false;

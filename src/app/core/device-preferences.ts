@@ -6,10 +6,23 @@ export interface DevicePreferenceValues {
   temperatureUnit: TemperatureUnit;
   /** The finest step the modeller's kitchen scale reads, in grams. */
   scaleResolutionG: number;
+  /** The money new containers are priced in (ISO 4217 code). */
+  currency: string;
+  /** Light or dark, or as the device is set. */
+  theme: ThemeChoice;
 }
 
+export type ThemeChoice = 'system' | 'light' | 'dark';
+
 const STORAGE_KEY = 'benchtide.device-preferences';
-const DEFAULTS: DevicePreferenceValues = { unitSystem: 'metric', temperatureUnit: 'C', scaleResolutionG: 0.1 };
+const DEFAULTS: DevicePreferenceValues = {
+  unitSystem: 'metric',
+  temperatureUnit: 'C',
+  scaleResolutionG: 0.1,
+  currency: 'EUR',
+  theme: 'system',
+};
+const THEMES: readonly ThemeChoice[] = ['system', 'light', 'dark'];
 export const SCALE_RESOLUTIONS_G = [0.01, 0.1, 1] as const;
 
 /** Choices that belong to this device (units, the scale on this bench), kept in local storage. */
@@ -20,6 +33,11 @@ export class DevicePreferences {
   readonly values = this.state.asReadonly();
 
   constructor() {
+    // The stylesheet follows color-scheme (light-dark()), so one property switches the whole theme.
+    effect(() => {
+      const { theme } = this.state();
+      document.documentElement.style.colorScheme = theme === 'system' ? '' : theme;
+    });
     effect(() => {
       try {
         localStorage.setItem(STORAGE_KEY, JSON.stringify(this.state()));
@@ -42,6 +60,9 @@ function load(): DevicePreferenceValues {
       temperatureUnit: stored.temperatureUnit === 'F' ? 'F' : 'C',
       scaleResolutionG:
         SCALE_RESOLUTIONS_G.find((step) => step === stored.scaleResolutionG) ?? DEFAULTS.scaleResolutionG,
+      currency:
+        typeof stored.currency === 'string' && /^[A-Z]{3}$/.test(stored.currency) ? stored.currency : DEFAULTS.currency,
+      theme: THEMES.find((theme) => theme === stored.theme) ?? DEFAULTS.theme,
     };
   } catch {
     return { ...DEFAULTS };

@@ -11,6 +11,8 @@ import { fixesFor, type ChangeFix } from '../sync/change-fixes';
 import { SyncEngine } from '../sync/sync-engine';
 import type { OutboxRow } from '../sync/synced-records';
 import { describeChange } from './change-words';
+import { DeviceSettings } from './device-settings';
+import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';
 
 /** How many waiting changes are listed one by one; the rest are counted. */
 const LISTED = 30;
@@ -22,7 +24,8 @@ const LISTED = 30;
  */
 @Component({
   selector: 'bt-device-page',
-  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink],
+  providers: [ROOMY_FORM_FIELDS],
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink, DeviceSettings],
   templateUrl: './device-page.html',
   styleUrl: './device-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -4,6 +4,7 @@ import { TEST_DATABASE_URL } from '../../support/test-database.js';
 
 export interface RunningApp {
   origin: string;
+  port: number;
   stop(): Promise<void>;
 }
 
@@ -34,9 +35,9 @@ async function waitForHealth(origin: string, child: ChildProcess): Promise<void>
   throw new Error('the server did not answer /api/health within 30 s');
 }
 
-/** The real production server as its own process, serving the production build, on a free port. */
-export async function startAppServer(env: Record<string, string> = {}): Promise<RunningApp> {
-  const port = await freePort();
+/** The real production server as its own process, serving the production build, on a free port or the one given. */
+export async function startAppServer(env: Record<string, string> = {}, onPort?: number): Promise<RunningApp> {
+  const port = onPort ?? (await freePort());
   const origin = `http://127.0.0.1:${port}`;
   const child = spawn(process.execPath, ['--import', 'tsx', 'server/main.ts'], {
     stdio: ['ignore', 'ignore', 'inherit'],
@@ -53,6 +54,7 @@ export async function startAppServer(env: Record<string, string> = {}): Promise<
   await waitForHealth(origin, child);
   return {
     origin,
+    port,
     stop: () =>
       new Promise<void>((resolve) => {
         if (child.exitCode !== null) return resolve();
