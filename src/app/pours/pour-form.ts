@@ -102,16 +102,30 @@ export function shapeFrom(value: ShapeFieldValues, units: DisplayUnits): PourSha
   }
 }
 
-/** The form, in display units, as the SI request the shared maths and the server accept. */
-export function toPlanRequest(
-  value: PourFormValue,
-  units: DisplayUnits,
-  scaleResolutionG: number,
-): PourPlanRequestInput {
+/** The data-sheet fields as typed, in display units. */
+export type DataSheetFieldValues = Pick<
+  PourFormValue,
+  | 'basis'
+  | 'partA'
+  | 'partB'
+  | 'densityA'
+  | 'densityB'
+  | 'potLifeMin'
+  | 'recoatH'
+  | 'recoatMaxH'
+  | 'demouldH'
+  | 'fullCureH'
+  | 'referenceTemp'
+  | 'minCureTemp'
+  | 'maxLayer'
+>;
+
+/** The data-sheet fields, in display units, as the SI data sheet the shared schema checks. */
+export function dataSheetFrom(value: DataSheetFieldValues, units: DisplayUnits): MaterialDataSheetInput {
   const partB = optionalNumber(value.partB);
   const densityB = optionalNumber(value.densityB);
   const recoatMaxH = optionalNumber(value.recoatMaxH);
-  const material: MaterialDataSheetInput = {
+  return {
     mixRatio: { basis: value.basis, partA: number(value.partA), ...(partB === undefined ? {} : { partB }) },
     densityAGPerMl: number(value.densityA),
     ...(densityB === undefined ? {} : { densityBGPerMl: densityB }),
@@ -124,13 +138,21 @@ export function toPlanRequest(
     minCureTempC: toCelsius(number(value.minCureTemp), units.temperature),
     maxLayerMm: toMm(number(value.maxLayer), units.length),
   };
+}
+
+/** The form, in display units, as the SI request the shared maths and the server accept. */
+export function toPlanRequest(
+  value: PourFormValue,
+  units: DisplayUnits,
+  scaleResolutionG: number,
+): PourPlanRequestInput {
   const startAt = new Date(value.startAt).getTime();
   return {
     shape: shapeFrom(value, units),
     depthMm: toMm(number(value.depth), units.length),
     displacedMl: toMl(number(value.displaced || '0'), units.volume),
     wastePercent: number(value.wastePercent || '0'),
-    material,
+    material: dataSheetFrom(value, units),
     roomTempC: toCelsius(number(value.roomTemp), units.temperature),
     startAtMs: Number.isFinite(startAt) ? startAt : Number.NaN,
     scaleResolutionG,
@@ -164,8 +186,11 @@ export function shapeFields(shape: PourShapeInput, units: DisplayUnits): Partial
 /** The data-sheet fields of a preset, in display units. */
 export function presetFields(presetId: string, units: DisplayUnits): Partial<PourFormValue> {
   const preset = findMaterialPreset(presetId);
-  if (!preset) return {};
-  const sheet = preset.dataSheet;
+  return preset ? dataSheetFields(preset.dataSheet, units) : {};
+}
+
+/** A data sheet (SI) as its fields show it, in display units. */
+export function dataSheetFields(sheet: MaterialDataSheetInput, units: DisplayUnits): DataSheetFieldValues {
   const optional = (value: number | undefined, scale = 1) => (value === undefined ? '' : fieldText(value / scale));
   return {
     basis: sheet.mixRatio.basis,

@@ -6,20 +6,14 @@ import { MatExpansionModule } from '@angular/material/expansion';
 import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
-import {
-  displayUnitsFor,
-  MATERIAL_PRESETS,
-  planPour,
-  TEMPERATURE_LABELS,
-  UNIT_LABELS,
-  type DisplayUnits,
-} from '@benchtide/shared';
+import { displayUnitsFor, MATERIAL_PRESETS, planPour, TEMPERATURE_LABELS, type DisplayUnits } from '@benchtide/shared';
 import { format } from 'date-fns';
 import { map, startWith } from 'rxjs';
 import { DevicePreferences, SCALE_RESOLUTIONS_G } from '../core/device-preferences';
 import { UnitSystemToggle } from '../core/unit-system-toggle';
 import { PourPlanDraft } from './pour-plan-draft';
 import { PourPlanSheet } from './pour-plan-sheet';
+import { DataSheetFields, dataSheetErrors } from './data-sheet-fields';
 import { FeatureShapeFields } from './feature-shape-fields';
 import { convertFields, presetFields, toPlanRequest } from './pour-form';
 import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';
@@ -41,6 +35,7 @@ function sameUnits(a: DisplayUnits, b: DisplayUnits): boolean {
     UnitSystemToggle,
     PourPlanSheet,
     FeatureShapeFields,
+    DataSheetFields,
   ],
   templateUrl: './pour-planner.html',
   styleUrl: './pour-planner.scss',
@@ -58,13 +53,7 @@ export class PourPlanner {
     const { unitSystem, temperatureUnit } = this.preferences.values();
     return { ...displayUnitsFor(unitSystem), temperature: temperatureUnit };
   });
-  protected readonly labels = computed(() => {
-    const units = this.units();
-    return {
-      length: UNIT_LABELS[units.length],
-      temperature: TEMPERATURE_LABELS[units.temperature],
-    };
-  });
+  protected readonly labels = computed(() => ({ temperature: TEMPERATURE_LABELS[this.units().temperature] }));
   protected readonly scaleResolutionG = computed(() => this.preferences.values().scaleResolutionG);
 
   private readonly formValue = toSignal(
@@ -74,8 +63,6 @@ export class PourPlanner {
     ),
     { requireSync: true },
   );
-  protected readonly twoPart = computed(() => (Number(this.formValue().partB.replace(',', '.')) || 0) > 0);
-
   protected readonly result = computed(() =>
     planPour(toPlanRequest(this.formValue(), this.units(), this.scaleResolutionG())),
   );
@@ -83,6 +70,7 @@ export class PourPlanner {
     const result = this.result();
     return result.ok ? new Map<string, string>() : new Map(result.errors.map((error) => [error.path, error.message]));
   });
+  protected readonly sheetErrors = computed(() => dataSheetErrors(this.errors(), 'material.'));
   protected readonly materialKind = computed(
     () => MATERIAL_PRESETS.find((preset) => preset.id === this.formValue().presetId)?.kind ?? 'two-part-epoxy',
   );
