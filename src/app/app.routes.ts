@@ -34,6 +34,11 @@ export const routes: Routes = [
     loadComponent: () => import('./builds/build-editor').then((m) => m.BuildEditor),
   },
   {
+    path: 'shelf',
+    title: 'Shelf · Benchtide',
+    loadComponent: () => import('./shelf/shelf-page').then((m) => m.ShelfPage),
+  },
+  {
     path: 'workshop',
     title: 'Workshop · Benchtide',
     canActivate: [signedInGuard],
