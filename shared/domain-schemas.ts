@@ -66,9 +66,14 @@ const materialFields = {
     .positive({ error: 'Shelf life once opened must be more than 0 days' })
     .optional(),
   /** A link to the maker's safety data sheet, or where the paper copy is. */
-  safetySheet: text('Safety data sheet', 500).default(''),
+  safetySheet: text('Safety data sheet', 500),
 };
-export const newMaterialSchema = z.object({ id: id('Material'), ...materialFields });
+// The default belongs to a new material only: on a patch it would blank a sheet the change never touched.
+export const newMaterialSchema = z.object({
+  id: id('Material'),
+  ...materialFields,
+  safetySheet: materialFields.safetySheet.default(''),
+});
 export const materialPatchSchema = z.object(materialFields).partial();
 
 const containerFields = {

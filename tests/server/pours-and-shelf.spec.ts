@@ -171,6 +171,17 @@ describe('the shelf', () => {
     expect(entry.expired).toBeTrue();
   });
 
+  it('should keep the safety data sheet note when a change to a material leaves it out', async () => {
+    const noted = await addMaterial(client, { safetySheet: 'Paper copy in the blue folder' });
+
+    await client.patch(`/materials/${noted}`, { name: 'Clear resin, new lot' }).expect(200);
+
+    const shelf = (await client.get('/shelf')).body as { id: string; safetySheet: string; name: string }[];
+    expect(shelf.find((material) => material.id === noted)).toEqual(
+      jasmine.objectContaining({ name: 'Clear resin, new lot', safetySheet: 'Paper copy in the blue folder' }),
+    );
+  });
+
   it('should refuse a container with an unknown currency code and store nothing', async () => {
     const response = await client.post('/containers', {
       id: v7(),
