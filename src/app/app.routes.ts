@@ -45,6 +45,26 @@ export const routes: Routes = [
     loadComponent: () => import('./workshop/workshop-page').then((m) => m.WorkshopPage),
   },
   {
+    path: 'log-pour',
+    title: 'Log a pour · Benchtide',
+    loadComponent: () => import('./pours/log-pour').then((m) => m.LogPour),
+  },
+  {
+    path: 'costs',
+    title: 'Costs · Benchtide',
+    loadComponent: () => import('./costs/costs-page').then((m) => m.CostsPage),
+  },
+  {
+    path: 'more',
+    title: 'More · Benchtide',
+    loadComponent: () => import('./more/more-page').then((m) => m.MorePage),
+  },
+  {
+    path: 'device',
+    title: 'This device · Benchtide',
+    loadComponent: () => import('./device/device-page').then((m) => m.DevicePage),
+  },
+  {
     path: 'invitations/:token',
     title: 'Invitation · Benchtide',
     loadComponent: () => import('./workshop/invitation-accept').then((m) => m.InvitationAccept),

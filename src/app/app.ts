@@ -45,7 +45,9 @@ export class App {
     // Created now: the browser's offer to install comes once, early; the chosen theme applies at once.
     inject(InstallOffer);
     inject(DevicePreferences);
-    afterNextRender(() => this.rendered.set(true));
+    // Once the first screen is up and the browser is idle (or after 4 s at the latest), so that loading
+    // the device store does not compete with the first paint and first taps.
+    afterNextRender(() => whenIdle(() => this.rendered.set(true)));
     // Syncing starts once the first screen is up and someone is signed in, from a chunk of its own.
     let started = false;
     let destroyed = false;
@@ -58,4 +60,9 @@ export class App {
       });
     });
   }
+}
+
+function whenIdle(work: () => void): void {
+  if (typeof requestIdleCallback === 'function') requestIdleCallback(work, { timeout: 4000 });
+  else setTimeout(work, 1000);
 }

@@ -237,7 +237,7 @@ export class LogPour {
     return `${pour.note || build} · ${material}${mixed}`;
   }
 
-  /** Copies the last pour's feature, depth, material and room; the build chosen stays. */
+  /** Copies the last pour's feature, depth, material and room. */
   protected repeat(pour: LocalPour): void {
     const { request } = pour;
     const units = this.units();
@@ -252,7 +252,8 @@ export class LogPour {
       containerIds: [],
       recordShortfall: false,
     });
-    if (this.form.controls.buildId.value === '') this.form.controls.buildId.setValue(pour.buildId);
+    // From a build's page the build stays; from the bench, the repeat goes into the last pour's build.
+    if (this.build() === undefined) this.form.controls.buildId.setValue(pour.buildId);
   }
 
   protected containerLabel(container: ContainerWithStock): string {
