@@ -16,9 +16,9 @@ export function nextTask(): Promise<void> {
   });
 }
 
-/** Waits until `check` gives something other than undefined, null or false; fails after 3 s. */
+/** Waits until `check` gives something other than undefined, null or false; fails after 10 s (2 busy cores). */
 export async function until<T>(check: () => T | undefined | null | false, what: string): Promise<T> {
-  const giveUpAt = performance.now() + 3_000;
+  const giveUpAt = performance.now() + 10_000;
   while (performance.now() < giveUpAt) {
     const value = check();
     if (value !== undefined && value !== null && value !== false) return value;
