@@ -50,7 +50,8 @@ export class BenchDb extends Dexie {
   declare readonly syncState: EntityTable<SyncStateRow, 'workshopId'>;
 
   constructor(name = 'benchtide') {
-    super(name);
+    // Live queries run against IndexedDB itself: the optimistic result cache missed rows leaving an index range.
+    super(name, { cache: 'disabled' });
     this.version(1).stores(SCHEMA_V1);
     this.version(2)
       .stores(SCHEMA_V2)

@@ -292,6 +292,10 @@ describe('SyncEngine', () => {
       await synced;
       const rejected = await until(() => engine.rejected()[0], 'the rejected change');
       expect(rejected.reason).toEqual(REFUSED);
+      await until(
+        () => !engine.waiting().some((row) => row.seq === rejected.seq),
+        'the refused change to stop waiting',
+      );
       return rejected.seq;
     }
 
