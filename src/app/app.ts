@@ -45,9 +45,10 @@ export class App {
     // Created now: the browser's offer to install comes once, early; the chosen theme applies at once.
     inject(InstallOffer);
     inject(DevicePreferences);
-    // Once the first screen is up and the browser is idle (or after 4 s at the latest), so that loading
-    // the device store does not compete with the first paint and first taps.
-    afterNextRender(() => whenIdle(() => this.rendered.set(true)));
+    // A few seconds after the first screen is up, when the browser is idle: loading the device store
+    // and the first push and pull must not compete with the first paint and the first taps. Screens
+    // read the device's records without it; a change made meanwhile goes with the first sync.
+    afterNextRender(() => setTimeout(() => whenIdle(() => this.rendered.set(true)), SYNC_START_DELAY_MS));
     // Syncing starts once the first screen is up and someone is signed in, from a chunk of its own.
     let started = false;
     let destroyed = false;
@@ -61,6 +62,8 @@ export class App {
     });
   }
 }
+
+const SYNC_START_DELAY_MS = 5000;
 
 function whenIdle(work: () => void): void {
   if (typeof requestIdleCallback === 'function') requestIdleCallback(work, { timeout: 4000 });

@@ -189,7 +189,8 @@ describe('the bench app on a phone', () => {
     }
     await page.screenshot({ path: screenshotPath('build-log-viewer-390x844') });
     await page.goto(`${app.origin}/log-pour`);
-    expect(await page.getByText('As a viewer of this workshop').isVisible()).toBeTrue();
+    await page.getByText('As a viewer of this workshop').waitFor();
+    expect(await page.getByRole('button', { name: 'Start pour' }).count()).toBe(0);
   }, 120_000);
 
   it('should have no serious or critical accessibility violations on any screen, at phone and desktop widths', async () => {

@@ -11,6 +11,16 @@ import { Connectivity } from '../core/connectivity';
 import { CostBook } from './cost-book';
 import { CostChart } from './cost-chart';
 
+interface CostTable {
+  readonly id: string;
+  readonly heading: string;
+  readonly what: string;
+  readonly amount: string;
+  readonly lines: CostLine[];
+  readonly links?: boolean;
+  readonly note?: string;
+}
+
 /** What the workshop spent on material: per month and material as a chart, per build and per material as tables. */
 @Component({
   selector: 'bt-costs-page',
@@ -35,9 +45,34 @@ export class CostsPage {
     return totals.find((line) => line.currency === chosen)?.currency ?? totals[0]?.currency ?? null;
   });
   protected readonly total = computed(() => this.inCurrency(this.costs().report.total)[0] ?? null);
-  protected readonly byBuild = computed(() => this.inCurrency(this.costs().report.byBuild));
-  protected readonly byMaterial = computed(() => this.inCurrency(this.costs().report.byMaterial));
-  protected readonly byMonth = computed(() => this.inCurrency(this.costs().report.byMonth));
+  protected readonly tables = computed<CostTable[]>(() => {
+    const { byBuild, byMaterial, byMonth } = this.costs().report;
+    return [
+      {
+        id: 'by-build',
+        heading: 'By build',
+        what: 'Build',
+        amount: 'Cost',
+        lines: this.inCurrency(byBuild),
+        links: true,
+        note: 'Waste is not charged to a build; it counts for its material and month.',
+      },
+      {
+        id: 'by-material',
+        heading: 'By material',
+        what: 'Material',
+        amount: 'Used and wasted',
+        lines: this.inCurrency(byMaterial),
+      },
+      {
+        id: 'by-month',
+        heading: 'By month',
+        what: 'Month',
+        amount: 'Used and wasted',
+        lines: this.inCurrency(byMonth),
+      },
+    ];
+  });
   protected readonly cells = computed(() => this.costs().byMonthAndMaterial);
   protected readonly csvHref = computed(() => {
     const id = this.session.currentWorkshopId();

@@ -38,7 +38,7 @@ import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';
 import { StockShortError } from '../sync/offline-store';
 import type { LocalPour } from '../sync/synced-records';
 import { FeatureShapeFields } from './feature-shape-fields';
-import { fieldText, shapeFields, shapeFrom, type ShapeKind } from './pour-form';
+import { featureControls, fieldText, shapeFields, shapeFrom, text } from './pour-form';
 import { PourLog, type ContainerWithStock } from './pour-log';
 import { PourPlanSheet } from './pour-plan-sheet';
 
@@ -59,10 +59,6 @@ const FIELD_OF_PATH: Readonly<Record<string, string>> = {
   roomTempC: 'roomTemp',
   startAtMs: 'startAt',
 };
-
-function text(value = ''): FormControl<string> {
-  return new FormControl(value, { nonNullable: true });
-}
 
 function number(value: string): number {
   return parseDecimal(value) ?? Number.NaN;
@@ -105,15 +101,7 @@ export class LogPour {
   protected readonly form = new FormGroup({
     buildId: text(),
     note: text(),
-    shapeKind: new FormControl<ShapeKind>('rectangle', { nonNullable: true }),
-    length: text(),
-    width: text(),
-    diameter: text(),
-    area: text(),
-    outline: text(),
-    depth: text(),
-    displaced: text('0'),
-    wastePercent: text('10'),
+    ...featureControls(),
     materialId: text(),
     roomTemp: text(),
     /** Empty: the pour starts when "Start pour" is pressed. */

@@ -17,12 +17,13 @@ import { parseDecimal } from '../core/decimal-input';
 export type ShapeKind = PourShapeInput['kind'];
 
 /** Every number is typed as text in the display units, so a comma or a half-typed value never throws. */
-function text(value = ''): FormControl<string> {
+export function text(value = ''): FormControl<string> {
   return new FormControl(value, { nonNullable: true });
 }
 
-export function createPourForm() {
-  return new FormGroup({
+/** The water feature's shape, size and depth, for any form that plans a pour. */
+export function featureControls() {
+  return {
     shapeKind: new FormControl<ShapeKind>('rectangle', { nonNullable: true }),
     length: text(),
     width: text(),
@@ -32,6 +33,12 @@ export function createPourForm() {
     depth: text(),
     displaced: text('0'),
     wastePercent: text('10'),
+  };
+}
+
+export function createPourForm() {
+  return new FormGroup({
+    ...featureControls(),
     presetId: text('deep-pour-epoxy'),
     basis: new FormControl<'volume' | 'weight'>('volume', { nonNullable: true }),
     partA: text(),
