@@ -1,4 +1,5 @@
-import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, input, signal } from '@angular/core';
+import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatIconModule } from '@angular/material/icon';
 import {
@@ -18,13 +19,14 @@ import { format } from 'date-fns';
 import { LayerDiagram } from './layer-diagram';
 import { areaUnitFor } from './pour-form';
 import { PourCautions } from './pour-cautions';
+import { WeighView } from './weigh-view';
 
 const WHEN = 'EEE d MMM, HH:mm';
 
 /** The plan as the modeller reads it at the bench: how much, how many layers, what to weigh, when. */
 @Component({
   selector: 'bt-pour-plan-sheet',
-  imports: [MatCardModule, MatIconModule, LayerDiagram, PourCautions],
+  imports: [MatButtonModule, MatCardModule, MatIconModule, LayerDiagram, PourCautions, WeighView],
   templateUrl: './pour-plan-sheet.html',
   styleUrl: './pour-plan-sheet.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -33,6 +35,9 @@ export class PourPlanSheet {
   readonly result = input.required<PourPlanResult>();
   readonly units = input.required<DisplayUnits>();
   readonly materialKind = input.required<MaterialKind>();
+
+  /** The weigh view is open: only the amounts, very large, the screen kept on. */
+  protected readonly weighing = signal(false);
 
   protected readonly plan = computed(() => {
     const result = this.result();
