@@ -1,4 +1,4 @@
-import { Component, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, signal } from '@angular/core';
 import { TestBed } from '@angular/core/testing';
 import { WeighView } from './weigh-view';
 
@@ -7,6 +7,7 @@ import { WeighView } from './weigh-view';
   template: `@if (open()) {
     <bt-weigh-view [partA]="partA()" [partB]="partB()" [layerCount]="3" (closed)="open.set(false)" />
   }`,
+  changeDetection: ChangeDetectionStrategy.OnPush,
 })
 class Host {
   readonly open = signal(true);
