@@ -54,7 +54,6 @@ import {
   type SizeFrom,
   type SizeUnits,
 } from './build-form';
-import { BuildIcons } from './build-icons';
 import { BuildLog } from './build-log';
 import { STATUS_SHOWN, scaleBadge, sizeText } from './build-words';
 import { WorkshopNeeded } from './workshop-needed';
@@ -166,7 +165,6 @@ export class BuildEditor {
   });
 
   constructor() {
-    inject(BuildIcons).register();
     // Filled once from the saved build: later changes synced in must not overwrite what is being typed.
     effect(() => {
       const build = this.build();

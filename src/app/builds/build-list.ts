@@ -3,7 +3,6 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
-import { BuildIcons } from './build-icons';
 import { BuildLog } from './build-log';
 import { STATUS_SHOWN, activityText, moneyText, scaleBadge } from './build-words';
 import { WorkshopNeeded } from './workshop-needed';
@@ -38,8 +37,4 @@ export class BuildList {
       pending: build.pending === true,
     }));
   });
-
-  constructor() {
-    inject(BuildIcons).register();
-  }
 }

@@ -22,7 +22,6 @@ import type { ApiProblem } from '../core/api-error';
 import { DevicePreferences } from '../core/device-preferences';
 import { ProblemNote } from '../core/problem-note';
 import type { LocalStep } from '../sync/synced-records';
-import { BuildIcons } from './build-icons';
 import { BuildLog } from './build-log';
 import { BuildSheet, type SheetHeader, type SheetStep } from './build-sheet';
 import {
@@ -160,10 +159,6 @@ export class BuildPage {
       this.followed.pours().filter((pour) => pour.pending).length +
       this.followed.steps().filter((step) => step.pending).length,
   );
-
-  constructor() {
-    inject(BuildIcons).register();
-  }
 
   protected when(at: string): string {
     const ms = Date.parse(at);

@@ -16,8 +16,8 @@ export type StepKind = (typeof STEP_KINDS)[number];
 
 /** Each status as an icon and a word, never by colour alone. */
 export const STATUS_SHOWN: Readonly<Record<BuildStatus, { readonly word: string; readonly icon: string }>> = {
-  planning: { word: 'Planning', icon: 'builds:planning' },
-  building: { word: 'Building', icon: 'builds:building' },
+  planning: { word: 'Planning', icon: 'planning' },
+  building: { word: 'Building', icon: 'building' },
   finished: { word: 'Finished', icon: 'done' },
 };
 

@@ -65,6 +65,11 @@ const ICONS: Record<string, string> = {
   more: '<circle cx="5.5" cy="12" r="1"/><circle cx="12" cy="12" r="1"/><circle cx="18.5" cy="12" r="1"/>',
   // a chevron back
   back: '<path d="M15 5l-7 7 7 7"/>',
+  // a clipboard with lines: a build still on paper
+  planning: '<rect x="5" y="4" width="14" height="17" rx="1.5"/><path d="M9 4V2.8h6V4M8.5 10h7M8.5 14h7M8.5 18h4"/>',
+  // a brush at work: a build under way
+  building:
+    '<path d="M12.5 11.5 20 4"/><path d="M12.5 11.5a3 3 0 0 0-4.2 0c-1.6 1.6-1 3.6-3.3 5.7 3 1.2 6.2.6 7.8-1a3 3 0 0 0-.3-4.7z"/>',
   // an envelope
   mail: '<rect x="3" y="5.5" width="18" height="13" rx="1.5"/><path d="m3.5 6.5 8.5 6.5 8.5-6.5"/>',
 };
