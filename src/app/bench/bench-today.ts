@@ -1,7 +1,6 @@
 import { inject, Injectable } from '@angular/core';
 import {
   pourMilestones,
-  remainingByContainer,
   shelfWarnings,
   type MixAmounts,
   type PourMilestone,
@@ -10,6 +9,7 @@ import {
 import { format } from 'date-fns';
 import { AccountSession } from '../account/account-session';
 import { BenchDb } from '../sync/bench-db';
+import { remainingOnDevice } from '../sync/device-stock';
 import { liveSignalOf } from '../sync/live-signal';
 
 /** A pour on the bench whose cure is still running (or finished within the last hours). */
@@ -86,18 +86,16 @@ export class BenchToday {
       .equals(workshopId)
       .filter((container) => container.deletedAt === null)
       .toArray();
-    const entries = await this.db.ledgerEntries
-      .where('workshopId')
-      .equals(workshopId)
-      .filter((entry) => entry.deletedAt === null)
-      .toArray();
     const materials = new Map(
       (await this.db.materials.where('workshopId').equals(workshopId).toArray()).map((material) => [
         material.id,
         material,
       ]),
     );
-    const remaining = remainingByContainer(entries.map((entry) => ({ ...entry, atMs: Date.parse(entry.at) })));
+    const remaining = await remainingOnDevice(
+      this.db,
+      containers.map((container) => container.id),
+    );
     const units = new Map(containers.map((container) => [container.id, container.unit]));
     return shelfWarnings(
       containers,

@@ -165,7 +165,7 @@ export class LogPour {
   protected readonly errors = computed(() => {
     const result = this.result();
     if (result === null || result.ok) return new Map<string, string>();
-    this.value();
+    this.value(); // read for its changes: a field turns dirty as it is typed in, which no signal reports
     const shown = result.errors.filter((error) => this.submitted() || this.fieldOf(error.path)?.dirty !== false);
     return new Map(shown.map((error) => [error.path, error.message]));
   });

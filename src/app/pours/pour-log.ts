@@ -1,7 +1,8 @@
 import { inject, Injectable, type Injector, type Signal } from '@angular/core';
-import { remainingByContainer, type NewPour, type ShelfContainer } from '@benchtide/shared';
+import { type NewPour, type ShelfContainer } from '@benchtide/shared';
 import { AccountSession } from '../account/account-session';
 import { BenchDb } from '../sync/bench-db';
+import { remainingOnDevice } from '../sync/device-stock';
 import { liveSignalOf } from '../sync/live-signal';
 import { OfflineStore } from '../sync/offline-store';
 import type { LocalBuild, LocalContainer, LocalMaterial, LocalPour } from '../sync/synced-records';
@@ -65,12 +66,10 @@ export class PourLog {
       async (id) => {
         if (id === null) return [];
         const containers = await this.live(this.db.containers.where('materialId').equals(id));
-        const entries = await this.db.ledgerEntries
-          .where('containerId')
-          .anyOf(containers.map((container) => container.id))
-          .filter((entry) => entry.deletedAt === null)
-          .toArray();
-        const remaining = remainingByContainer(entries.map((entry) => ({ ...entry, atMs: Date.parse(entry.at) })));
+        const remaining = await remainingOnDevice(
+          this.db,
+          containers.map((container) => container.id),
+        );
         return containers
           .map((container) => ({
             id: container.id,

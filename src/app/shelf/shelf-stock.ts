@@ -1,7 +1,6 @@
 import { computed, inject, Injectable, type Injector, type Signal } from '@angular/core';
 import {
   may,
-  remainingByContainer,
   type containerPatchSchema,
   type materialPatchSchema,
   type NewContainer,
@@ -10,6 +9,7 @@ import {
 import type { z } from 'zod';
 import { AccountSession } from '../account/account-session';
 import { BenchDb } from '../sync/bench-db';
+import { remainingOnDevice } from '../sync/device-stock';
 import { liveSignalOf } from '../sync/live-signal';
 import { OfflineStore } from '../sync/offline-store';
 import type { MaterialStock } from './container-row';
@@ -49,12 +49,10 @@ export class ShelfStock {
           .equals(workshopId)
           .filter((container) => container.deletedAt === null)
           .toArray();
-        const entries = await this.db.ledgerEntries
-          .where('containerId')
-          .anyOf(containers.map((container) => container.id))
-          .filter((entry) => entry.deletedAt === null)
-          .toArray();
-        const remaining = remainingByContainer(entries.map((entry) => ({ ...entry, atMs: Date.parse(entry.at) })));
+        const remaining = await remainingOnDevice(
+          this.db,
+          containers.map((container) => container.id),
+        );
         return materials
           .sort((a, b) => a.name.localeCompare(b.name))
           .map((material) => ({

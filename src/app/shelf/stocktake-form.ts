@@ -9,10 +9,10 @@ import { stocktakeAdjustment, stocktakeSchema } from '@benchtide/shared';
 import { map, startWith } from 'rxjs';
 import { parseDecimal } from '../core/decimal-input';
 import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';
-import { dayText, PART_LABELS, quantityText } from './container-row';
+import { quantityText } from './container-row';
 import { fieldMessages } from './field-messages';
 import { ShelfStock } from './shelf-stock';
-import type { StockEntryData } from './stock-entry-data';
+import { entryTitle, type StockEntryData } from './stock-entry-data';
 
 /** "−5.5 g", "+2 g": the sign always shown, a true minus sign for the eye. */
 function signedQuantity(quantity: number, unit: string): string {
@@ -61,7 +61,7 @@ export class StocktakeForm {
 
   protected readonly unit = this.data.container.unit;
   protected readonly expected = `${quantityText(this.data.remainingQty)} ${this.unit}`;
-  protected readonly what = `${this.data.material.name}: ${PART_LABELS[this.data.container.part]} bought ${dayText(this.data.container.boughtOn)}`;
+  protected readonly what = entryTitle(this.data);
   protected readonly form = new FormGroup({ counted: new FormControl('', { nonNullable: true }) });
 
   private readonly counted = toSignal(

@@ -10,10 +10,10 @@ import { DEFERENCE_NOTE, safetyCautions, wasteSchema } from '@benchtide/shared';
 import { map, startWith } from 'rxjs';
 import { parseDecimal } from '../core/decimal-input';
 import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';
-import { dayText, PART_LABELS, quantityText } from './container-row';
+import { quantityText } from './container-row';
 import { fieldMessages } from './field-messages';
 import { ShelfStock } from './shelf-stock';
-import type { StockEntryData } from './stock-entry-data';
+import { entryTitle, type StockEntryData } from './stock-entry-data';
 
 /** Spilled, skinned over or gone off: an amount taken off a container's stock, with a note of why. */
 @Component({
@@ -71,7 +71,7 @@ export class WasteForm {
 
   protected readonly unit = this.data.container.unit;
   protected readonly left = `${quantityText(this.data.remainingQty)} ${this.unit}`;
-  protected readonly what = `${this.data.material.name}: ${PART_LABELS[this.data.container.part]} bought ${dayText(this.data.container.boughtOn)}`;
+  protected readonly what = entryTitle(this.data);
   /** Uncured two-part resin is the waste that needs care. */
   protected readonly disposal =
     this.data.material.kind === 'two-part-epoxy'

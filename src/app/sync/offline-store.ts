@@ -11,7 +11,6 @@ import {
   newPourSchema,
   newStepSchema,
   planPour,
-  remainingByContainer,
   stepPatchSchema,
   stockShortMessage,
   stocktakeAdjustment,
@@ -31,6 +30,7 @@ import { Subject } from 'rxjs';
 import { v7 } from 'uuid';
 import type { z } from 'zod';
 import { BenchDb } from './bench-db';
+import { remainingOnDevice } from './device-stock';
 import { discardChange } from './discard-change';
 import { insertRecords, ledgerEntry, patchRecord, softDelete, type NewFields } from './record-writes';
 import type { RecordUndo, SyncedTableName } from './synced-records';
@@ -170,7 +170,7 @@ export class OfflineStore {
     const data = stocktakeSchema.parse(withId(draft));
     const mutation: Mutation = { type: 'container.stocktake', mutationId: v7(), recordId: containerId, data };
     await this.apply(workshopId, mutation, async (now) => {
-      const sums = await this.remainingOf([containerId]);
+      const sums = await remainingOnDevice(this.db, [containerId]);
       const quantity = stocktakeAdjustment(data.countedQty, sums[containerId] ?? 0);
       return insertRecords(this.db, workshopId, now, [
         ['ledgerEntries', ledgerEntry(containerId, 'stocktake', quantity, { id: data.id, at: now })],
@@ -230,18 +230,11 @@ export class OfflineStore {
     if (pour.containerIds?.some((id) => !containers.some((container) => container.id === id))) {
       throw new Error(CONTAINER_NOT_HERE);
     }
-    const sums = await this.remainingOf(containers.map((container) => container.id));
+    const sums = await remainingOnDevice(
+      this.db,
+      containers.map((container) => container.id),
+    );
     return containers.map((container) => ({ ...container, remainingQty: sums[container.id] ?? 0 }));
-  }
-
-  /** Remaining stock by container: the sum of its entries on this device, queued ones included. */
-  private async remainingOf(containerIds: readonly string[]): Promise<Record<string, number>> {
-    const entries = await this.db.ledgerEntries
-      .where('containerId')
-      .anyOf([...containerIds])
-      .filter((entry) => entry.deletedAt === null)
-      .toArray();
-    return remainingByContainer(entries.map((entry) => ({ ...entry, atMs: Date.parse(entry.at) })));
   }
 
   private async create(
