@@ -39,6 +39,8 @@ const buildFields = {
   realDepthMm: positive('Real depth', 'mm').optional(),
   status: z.enum(BUILD_STATUSES, { error: 'Status must be planning, building or finished' }),
   notes: text('Notes', 10_000),
+  /** The photo shown on the build's card; null takes it off. */
+  coverPhotoId: z.uuid({ error: 'Cover must be a photo of this build' }).nullish(),
 };
 export const newBuildSchema = z.object({ id: id('Build'), ...buildFields, notes: buildFields.notes.default('') });
 export const buildPatchSchema = z.object(buildFields).partial();

@@ -10,6 +10,7 @@ export * from './mix.js';
 export * from './pour-draw.js';
 export * from './pour-milestones.js';
 export * from './pour-plan.js';
+export * from './photo-schemas.js';
 export * from './pour-volume.js';
 export * from './rounding.js';
 export * from './safety.js';

@@ -17,6 +17,7 @@ import {
   stocktakeSchema,
   wasteSchema,
 } from './domain-schemas.js';
+import { photoPatchSchema } from './photo-schemas.js';
 
 const mutationId = z.uuid({ error: 'A change needs an id made by the app' });
 const recordId = z.uuid({ error: 'A change must name the record it changes' });
@@ -41,6 +42,8 @@ export const mutationSchema = z.discriminatedUnion(
     z.object({ type: z.literal('container.stocktake'), mutationId, recordId, data: stocktakeSchema }),
     z.object({ type: z.literal('pour.create'), mutationId, data: newPourSchema }),
     z.object({ type: z.literal('pour.delete'), mutationId, recordId }),
+    z.object({ type: z.literal('photo.patch'), mutationId, recordId, data: photoPatchSchema }),
+    z.object({ type: z.literal('photo.delete'), mutationId, recordId }),
   ],
   { error: 'Unknown kind of change' },
 );
@@ -75,7 +78,7 @@ export interface PushAnswer {
   readonly results: readonly MutationResult[];
 }
 
-export const SYNCED_ENTITIES = ['build', 'step', 'material', 'container', 'ledgerEntry', 'pour'] as const;
+export const SYNCED_ENTITIES = ['build', 'step', 'material', 'container', 'ledgerEntry', 'pour', 'photo'] as const;
 export type SyncedEntity = (typeof SYNCED_ENTITIES)[number];
 
 /** One changed record; `record.deletedAt` set means a tombstone. */
