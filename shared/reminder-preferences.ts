@@ -1,0 +1,84 @@
+/**
+ * What a member wants to be reminded of, how, and when not: the moments after a pour worth a
+ * reminder, the weekly shelf digest, the channels (Web Push to each subscribed browser, e-mail),
+ * and quiet hours in the member's own time zone, during which a reminder waits until they end.
+ */
+import { TZDate } from '@date-fns/tz';
+import { z } from 'zod';
+
+export const REMINDER_KINDS = ['next-layer-due', 'demould', 'full-cure', 'shelf-digest'] as const;
+export type ReminderKind = (typeof REMINDER_KINDS)[number];
+export const REMINDER_CHANNELS = ['push', 'email'] as const;
+export type ReminderChannel = (typeof REMINDER_CHANNELS)[number];
+
+const wallTime = (label: string) =>
+  z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, { error: `${label} must be a time of day like 22:30` });
+
+function isTimeZone(name: string): boolean {
+  try {
+    new Intl.DateTimeFormat('en', { timeZone: name });
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+export const quietHoursSchema = z.object({ from: wallTime('Quiet from'), until: wallTime('Quiet until') });
+export type QuietHours = z.infer<typeof quietHoursSchema>;
+
+export const reminderPreferencesSchema = z.object({
+  kinds: z.array(z.enum(REMINDER_KINDS, { error: 'Unknown kind of reminder' })).refine(unique, {
+    error: 'Each kind of reminder once',
+  }),
+  channels: z.array(z.enum(REMINDER_CHANNELS, { error: 'Reminders go by push or e-mail' })).refine(unique, {
+    error: 'Each channel once',
+  }),
+  /** null: no quiet hours. */
+  quietHours: quietHoursSchema.nullable(),
+  timeZone: z.string().refine(isTimeZone, { error: 'Choose a time zone from the list' }),
+});
+export type ReminderPreferences = z.infer<typeof reminderPreferencesSchema>;
+
+function unique(values: readonly string[]): boolean {
+  return new Set(values).size === values.length;
+}
+
+/** Until a member chooses: every pour reminder and the digest, by push, quiet from 22:00 to 07:00. */
+export function defaultReminderPreferences(timeZone: string): ReminderPreferences {
+  return {
+    kinds: [...REMINDER_KINDS],
+    channels: ['push'],
+    quietHours: { from: '22:00', until: '07:00' },
+    timeZone: isTimeZone(timeZone) ? timeZone : 'UTC',
+  };
+}
+
+const minutesOf = (time: string) => Number(time.slice(0, 2)) * 60 + Number(time.slice(3, 5));
+
+/**
+ * When a reminder due at `dueAtMs` may be sent: at once, unless that moment falls within quiet hours
+ * in `timeZone` (a window may run past midnight, e.g. 22:00–07:00), in which case the moment they
+ * end, on the member's clock (so a change to or from summer time is counted right). A window whose
+ * ends are equal is empty.
+ */
+export function afterQuietHours(dueAtMs: number, quietHours: QuietHours | null, timeZone: string): number {
+  if (!quietHours) return dueAtMs;
+  const from = minutesOf(quietHours.from);
+  const until = minutesOf(quietHours.until);
+  if (from === until) return dueAtMs;
+  const local = new TZDate(dueAtMs, timeZone);
+  const now = local.getHours() * 60 + local.getMinutes();
+  const quiet = from < until ? now >= from && now < until : now >= from || now < until;
+  if (!quiet) return dueAtMs;
+  const endOn = (dayOffset: number) =>
+    new TZDate(
+      local.getFullYear(),
+      local.getMonth(),
+      local.getDate() + dayOffset,
+      Math.floor(until / 60),
+      until % 60,
+      timeZone,
+    ).getTime();
+  const today = endOn(0);
+  return today > dueAtMs ? today : endOn(1);
+}
