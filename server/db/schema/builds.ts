@@ -17,6 +17,8 @@ export const builds = pgTable(
     status: text('status', { enum: BUILD_STATUSES }).notNull(),
     notes: text('notes').notNull().default(''),
     createdBy: uuid('created_by').references(() => users.id, { onDelete: 'set null' }),
+    /** A live photo of this build, checked on every write; deleting that photo clears it. */
+    coverPhotoId: uuid('cover_photo_id'),
   },
   (table) => [index('builds_workshop_change').on(table.workshopId, table.changeNumber)],
 );

@@ -1,5 +1,6 @@
 export * from './auth.js';
 export * from './builds.js';
+export * from './photos.js';
 export * from './pours.js';
 export * from './shelf.js';
 export * from './users.js';
