@@ -1,0 +1,55 @@
+/**
+ * The reminders a pour earns: each next layer becoming due, demould and full cure (the moments a
+ * modeller has to come back to the bench for; working time running out happens while they are
+ * still there). Each has a key that is the same every time it is worked out for the same pour, so
+ * scheduling it twice, or rescheduling it, never makes a second reminder.
+ */
+import type { CureTimeline } from './cure.js';
+import { pourMilestones, type MilestoneKind } from './pour-milestones.js';
+import type { ReminderKind } from './reminder-preferences.js';
+
+export type PourReminderKind = Extract<ReminderKind, MilestoneKind>;
+const REMINDED: readonly MilestoneKind[] = ['next-layer-due', 'demould', 'full-cure'];
+
+export interface PourReminder {
+  /** `<kind>` or `<kind>:<layer>`, unique within one pour. */
+  readonly key: string;
+  readonly kind: PourReminderKind;
+  readonly layer: number | null;
+  readonly dueAtMs: number;
+  readonly title: string;
+  readonly body: string;
+}
+
+export interface PourLabel {
+  readonly buildName: string;
+  /** What was poured, e.g. "Mill race"; may be empty. */
+  readonly feature: string;
+}
+
+export function pourReminders(
+  cure: Pick<CureTimeline, 'layers' | 'demouldAtMs' | 'fullCureAtMs'>,
+  label: PourLabel,
+): PourReminder[] {
+  const what = label.feature.trim() ? `${label.feature.trim()} on ${label.buildName}` : label.buildName;
+  return pourMilestones(cure)
+    .filter((milestone) => REMINDED.includes(milestone.kind))
+    .map((milestone) => {
+      const kind = milestone.kind as PourReminderKind;
+      const layer = milestone.layer ?? null;
+      return {
+        key: layer === null ? kind : `${kind}:${layer}`,
+        kind,
+        layer,
+        dueAtMs: milestone.atMs,
+        title: milestone.label,
+        body: BODIES[kind](what),
+      };
+    });
+}
+
+const BODIES: Record<PourReminderKind, (what: string) => string> = {
+  'next-layer-due': (what) => `${what}: the last layer is firm enough for the next. Mix only what this layer needs.`,
+  demould: (what) => `${what} can come out of its mould or dam. Handle it gently until full cure.`,
+  'full-cure': (what) => `${what} has fully cured, by the estimate from the data sheet and room temperature.`,
+};
