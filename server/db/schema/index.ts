@@ -7,3 +7,4 @@ export * from './users.js';
 export * from './workshops.js';
 export * from './rollups.js';
 export * from './sync.js';
+export * from './reminders.js';
