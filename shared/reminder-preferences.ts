@@ -82,3 +82,16 @@ export function afterQuietHours(dueAtMs: number, quietHours: QuietHours | null, 
   const today = endOn(0);
   return today > dueAtMs ? today : endOn(1);
 }
+
+/** What a browser's PushManager.subscribe() gives, as JSON, plus a name for the device. */
+export const pushSubscriptionSchema = z.object({
+  endpoint: z.url({ protocol: /^https?$/, error: 'The push address must be a web address' }).max(2000),
+  keys: z.object({
+    p256dh: z.base64url({ error: 'The browser key is not in the expected form' }).max(200),
+    auth: z.base64url({ error: 'The browser secret is not in the expected form' }).max(100),
+  }),
+  label: z.string().trim().max(80, { error: 'Device name must be at most 80 characters' }).default(''),
+});
+export type PushSubscriptionInput = z.input<typeof pushSubscriptionSchema>;
+
+export const pushUnsubscribeSchema = z.object({ endpoint: z.string().max(2000) });

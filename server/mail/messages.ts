@@ -73,3 +73,12 @@ export function invitationMessage(to: string, inviter: string, workshop: string,
     { label: 'See the invitation', url },
   );
 }
+
+export function reminderMessage(to: string, title: string, body: string, url: string): MailMessage {
+  return compose(
+    to,
+    title,
+    [body, 'You get this because you asked for these reminders; change them in Benchtide under Account.'],
+    { label: 'Open it in Benchtide', url },
+  );
+}

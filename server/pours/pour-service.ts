@@ -12,6 +12,7 @@ import { insertRecord, liveRecord, tombstone, writeRecords, type RecordKind } fr
 import { CONTAINER, LEDGER_ENTRY, MATERIAL } from '../shelf/shelf-service.js';
 import { lockedContainersOf, remainingOf } from '../shelf/stock.js';
 import { uuidv7 } from '../records/ids.js';
+import { cancelReminders, scheduleReminders } from '../reminders/pour-reminder-schedule.js';
 import type { materials } from '../db/schema/index.js';
 
 export const POUR: RecordKind = { table: pours, noun: 'pour' };
@@ -85,6 +86,7 @@ export function createPour(ctx: ServerContext, userId: string, workshopId: strin
       loggedBy: userId,
     });
     for (const entry of entries) await insertRecord(tx, LEDGER_ENTRY, entry);
+    await scheduleReminders(tx, { id: input.id, workshopId, buildId: input.buildId, note: input.note, plan: computed });
     return pour;
   });
 }
@@ -94,6 +96,7 @@ export function deletePour(ctx: ServerContext, userId: string, workshopId: strin
   return writeRecords(ctx, userId, workshopId, async (tx, changeNumber) => {
     await tombstone(tx, workshopId, POUR, id, changeNumber);
     const now = new Date();
+    await cancelReminders(tx, id, now);
     await tx
       .update(ledgerEntries)
       .set({ deletedAt: now, updatedAt: now, changeNumber })

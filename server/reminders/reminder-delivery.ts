@@ -1,0 +1,154 @@
+import { and, asc, eq, isNull, lte } from 'drizzle-orm';
+import { afterQuietHours } from '../../shared/reminder-preferences.js';
+import type { ServerContext } from '../context.js';
+import { pours } from '../db/schema/pours.js';
+import { pushSubscriptions, reminderDeliveries, reminders } from '../db/schema/reminders.js';
+import { users } from '../db/schema/users.js';
+import { reminderMessage } from '../mail/messages.js';
+import type { Transaction } from '../records/change-stamp.js';
+import { notificationPayload, sendPush, type ReminderMessage } from './push-sender.js';
+import { recipientsOf, type Recipient } from './reminder-recipients.js';
+import type { VapidKeys } from './vapid-keys.js';
+
+/** Minutes to wait before each retry of a delivery that failed; after the last, it is given up. */
+const RETRY_AFTER_MIN = [1, 5, 15, 60];
+const BATCH = 20;
+
+export interface Sending {
+  vapid: VapidKeys;
+  /** The contact a push service may use about our pushes (RFC 8292 `sub`). */
+  vapidSubject: string;
+}
+
+/** Makes out each recipient's deliveries for the reminders due by `now`, each held past quiet hours. */
+export async function fanOutDueReminders(ctx: ServerContext, now: Date): Promise<number> {
+  return ctx.db.transaction(async (tx) => {
+    const due = await tx
+      .select({ reminder: reminders, buildId: pours.buildId, pourDeletedAt: pours.deletedAt })
+      .from(reminders)
+      .innerJoin(pours, eq(pours.id, reminders.pourId))
+      .where(and(lte(reminders.dueAt, now), isNull(reminders.fannedOutAt), isNull(reminders.cancelledAt)))
+      .orderBy(asc(reminders.dueAt))
+      .limit(200)
+      .for('update', { of: reminders, skipLocked: true });
+    for (const { reminder, buildId, pourDeletedAt } of due) {
+      if (pourDeletedAt === null) {
+        const message = {
+          title: reminder.title,
+          body: reminder.body,
+          url: `/builds/${buildId}?pour=${reminder.pourId}`,
+        };
+        const people = await recipientsOf(tx, reminder.workshopId, reminder.kind);
+        await addDeliveries(tx, `pour:${reminder.id}`, people, message, reminder.dueAt, now, reminder.id);
+      }
+      await tx
+        .update(reminders)
+        .set(pourDeletedAt === null ? { fannedOutAt: now } : { cancelledAt: now })
+        .where(eq(reminders.id, reminder.id));
+    }
+    return due.length;
+  });
+}
+
+/** One delivery per recipient and channel; a subject already made out for them is left as it is. */
+export async function addDeliveries(
+  tx: Transaction,
+  subject: string,
+  people: readonly Recipient[],
+  message: ReminderMessage,
+  dueAt: Date,
+  now: Date,
+  reminderId: string | null = null,
+): Promise<void> {
+  const rows = people.flatMap((person) => {
+    const from = Math.max(dueAt.getTime(), now.getTime());
+    const sendAfter = new Date(afterQuietHours(from, person.preferences.quietHours, person.preferences.timeZone));
+    return person.channels.map((channel) => ({
+      subject,
+      userId: person.userId,
+      channel,
+      reminderId,
+      sendAfter,
+      message,
+    }));
+  });
+  if (rows.length > 0) await tx.insert(reminderDeliveries).values(rows).onConflictDoNothing();
+}
+
+/**
+ * Sends every delivery due by `now`. Each batch is claimed with row locks (SKIP LOCKED) and marked
+ * in the same transaction as it is sent, so two workers running at once never send one twice.
+ */
+export async function sendDueDeliveries(ctx: ServerContext, now: Date, sending: Sending): Promise<number> {
+  let handled = 0;
+  for (;;) {
+    const count = await ctx.db.transaction(async (tx) => {
+      const batch = await tx
+        .select({ delivery: reminderDeliveries, email: users.email })
+        .from(reminderDeliveries)
+        .innerJoin(users, eq(users.id, reminderDeliveries.userId))
+        .where(and(eq(reminderDeliveries.status, 'waiting'), lte(reminderDeliveries.sendAfter, now)))
+        .orderBy(asc(reminderDeliveries.sendAfter))
+        .limit(BATCH)
+        .for('update', { of: reminderDeliveries, skipLocked: true });
+      for (const { delivery, email } of batch) {
+        const error =
+          delivery.channel === 'email'
+            ? await sendEmail(ctx, email, delivery.message)
+            : await pushToEveryDevice(tx, delivery.userId, delivery.subject, delivery.message, sending);
+        const attempts = delivery.attempts + 1;
+        const retryIn = RETRY_AFTER_MIN[attempts - 1];
+        await tx
+          .update(reminderDeliveries)
+          .set(
+            error === null
+              ? { status: 'sent', attempts, sentAt: now, lastError: null }
+              : retryIn === undefined
+                ? { status: 'failed', attempts, lastError: error }
+                : { attempts, lastError: error, sendAfter: new Date(now.getTime() + retryIn * 60_000) },
+          )
+          .where(
+            and(
+              eq(reminderDeliveries.subject, delivery.subject),
+              eq(reminderDeliveries.userId, delivery.userId),
+              eq(reminderDeliveries.channel, delivery.channel),
+            ),
+          );
+      }
+      return batch.length;
+    });
+    handled += count;
+    if (count < BATCH) return handled;
+  }
+}
+
+async function sendEmail(ctx: ServerContext, to: string, message: ReminderMessage): Promise<string | null> {
+  try {
+    await ctx.mailer.send(reminderMessage(to, message.title, message.body, `${ctx.config.publicOrigin}${message.url}`));
+    return null;
+  } catch (error) {
+    return `the e-mail could not be sent (${(error as Error).message})`;
+  }
+}
+
+/** To each browser the member subscribed; a browser that unsubscribed is forgotten. Null when one got it. */
+async function pushToEveryDevice(
+  tx: Transaction,
+  userId: string,
+  tag: string,
+  message: ReminderMessage,
+  sending: Sending,
+): Promise<string | null> {
+  const targets = await tx.select().from(pushSubscriptions).where(eq(pushSubscriptions.userId, userId));
+  const payload = notificationPayload(message, tag);
+  const errors: string[] = [];
+  let delivered = false;
+  for (const target of targets) {
+    const outcome = await sendPush(target, payload, sending.vapid, sending.vapidSubject);
+    if (outcome.status === 'sent') delivered = true;
+    else if (outcome.status === 'gone') await tx.delete(pushSubscriptions).where(eq(pushSubscriptions.id, target.id));
+    else errors.push(outcome.error);
+  }
+  if (delivered) return null;
+  return errors[0] ?? 'no browser of this member takes pushes any more';
+}
