@@ -5,12 +5,13 @@ import type { ServerContext } from './context.js';
 import { systemClock, type Clock } from './core/clock.js';
 import type { DatabaseHandle } from './db/database.js';
 import { smtpMailer, type Mailer } from './mail/mailer.js';
+import { createPhotoStore, type PhotoStore } from './photos/photo-store.js';
 
-/** Wires the real parts together; tests pass their own clock or mailer. */
+/** Wires the real parts together; tests pass their own clock, mailer or photo store. */
 export function createContext(
   config: ServerConfig,
   database: DatabaseHandle,
-  parts: { clock?: Clock; mailer?: Mailer } = {},
+  parts: { clock?: Clock; mailer?: Mailer; photos?: PhotoStore } = {},
 ): ServerContext {
   return {
     config,
@@ -19,6 +20,7 @@ export function createContext(
     clock: parts.clock ?? systemClock,
     mailer: parts.mailer ?? smtpMailer(config.smtpUrl, config.mailFrom),
     sessions: luciaSessionStore(database.db, config.secureCookies),
+    photos: parts.photos ?? createPhotoStore(config.photoStore),
     log: pino({ level: config.logLevel }),
   };
 }

@@ -81,6 +81,15 @@ export async function writeRecords<T>(
   return ctx.db.transaction(async (tx) => write(tx, await stampChange(tx, workshopId)));
 }
 
+/**
+ * Work outside the database that must wait until a write has committed, such as removing the
+ * files of a deleted photo: at once after a lone write, after the whole batch for a sync push.
+ */
+export async function afterCommit(ctx: ServerContext, work: () => Promise<void>): Promise<void> {
+  if (ctx.batch) ctx.batch.afterCommit.push(work);
+  else await work();
+}
+
 export async function insertRecord(tx: Transaction, kind: RecordKind, values: Record<string, unknown>) {
   const [row] = await tx
     .insert(kind.table)

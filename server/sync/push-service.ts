@@ -68,7 +68,8 @@ async function applyBatch(
   raw: readonly unknown[],
   isolate: boolean,
 ): Promise<PushAnswer> {
-  return ctx.db.transaction(async (tx) => {
+  const afterCommit: (() => Promise<void>)[] = [];
+  const answer = await ctx.db.transaction(async (tx) => {
     // One change number for the batch (it commits as one), taken when the first change is applied,
     // so a batch of replays changes nothing at all. The workshop stays locked until the commit.
     let batchCtx: ServerContext | null = null;
@@ -95,7 +96,7 @@ async function applyBatch(
       batchCtx ??= {
         ...ctx,
         db: tx as unknown as Database,
-        batch: { role, changeNumber: await stampChange(tx, workshopId) },
+        batch: { role, changeNumber: await stampChange(tx, workshopId), afterCommit },
       };
       const result = await applyOne(batchCtx, userId, workshopId, mutationId, item, isolate);
       recorded.push({ mutationId, workshopId, userId, result });
@@ -105,6 +106,8 @@ async function applyBatch(
     if (recorded.length > 0) await tx.insert(pushedMutations).values(recorded);
     return { results };
   });
+  for (const work of afterCommit) await work();
+  return answer;
 }
 
 async function applyOne(
@@ -117,6 +120,7 @@ async function applyOne(
 ): Promise<MutationResult> {
   const parsed = mutationSchema.safeParse(item);
   if (!parsed.success) return rejection(mutationId, refusedShape(item));
+  const queued = ctx.batch!.afterCommit.length;
   try {
     if (isolate) {
       // A savepoint: a refused mutation leaves no trace, and the batch goes on.
@@ -129,6 +133,8 @@ async function applyOne(
   } catch (error) {
     if (error instanceof AppError && error.status < 500) {
       if (!isolate) throw new RefusalInBatch();
+      // Its savepoint is rolled back, so nothing it queued for after the commit may run.
+      ctx.batch!.afterCommit.length = queued;
       return rejection(mutationId, error);
     }
     throw error;

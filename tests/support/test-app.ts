@@ -1,4 +1,7 @@
 import type { Express } from 'express';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { createApp } from '../../server/app.js';
 import { readConfig, type ServerConfig } from '../../server/config.js';
 import { createContext } from '../../server/context-factory.js';
@@ -44,6 +47,19 @@ export async function closeTestMailSink(): Promise<void> {
   sink = undefined;
 }
 
+let photoDir: string | undefined;
+
+/** The run's own photo folder, outside the project, so tests never touch .data; removed when the run ends. */
+export function testPhotoDir(): string {
+  photoDir ??= mkdtempSync(join(tmpdir(), 'benchtide-photos-'));
+  return photoDir;
+}
+
+export function removeTestPhotoDir(): void {
+  if (photoDir) rmSync(photoDir, { recursive: true, force: true });
+  photoDir = undefined;
+}
+
 export const TEST_ORIGIN = 'http://127.0.0.1:3999';
 
 export interface TestServer {
@@ -60,7 +76,11 @@ export async function testServer(
 ): Promise<TestServer> {
   const mail = await testMailSink();
   const config = {
-    ...readConfig({ LOG_LEVEL: process.env['LOG_LEVEL'] ?? 'silent', PUBLIC_ORIGIN: TEST_ORIGIN }),
+    ...readConfig({
+      LOG_LEVEL: process.env['LOG_LEVEL'] ?? 'silent',
+      PUBLIC_ORIGIN: TEST_ORIGIN,
+      PHOTO_DIR: testPhotoDir(),
+    }),
     ...overrides,
   };
   const clock = new TestClock();
