@@ -4,6 +4,7 @@ import { readConfig } from './config.js';
 import { createContext } from './context-factory.js';
 import { applyMigrations, openDatabase } from './db/database.js';
 import { pino } from 'pino';
+import { startReminderJobs } from './reminders/reminder-jobs.js';
 
 const config = readConfig();
 const log = pino({ level: config.logLevel });
@@ -17,7 +18,10 @@ try {
   process.exit(1);
 }
 
-const app = createApp(createContext(config, database));
+const ctx = createContext(config, database);
+const app = createApp(ctx);
+// Every API process runs the reminder workers; pg-boss and row locks keep them from sending twice.
+const reminders = process.env['REMINDER_JOBS'] === 'off' ? null : await startReminderJobs(ctx);
 const server: Server = app.listen(config.port, config.host, () => {
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.port;
@@ -35,6 +39,7 @@ function shutDown(signal: string): void {
   log.info(`${signal}: finishing requests, then stopping`);
   // Requests in flight finish; idle keep-alive sockets are closed so the process can exit.
   server.close(async () => {
+    await reminders?.stop();
     await database.pool.end();
     log.info('stopped');
     process.exit(0);

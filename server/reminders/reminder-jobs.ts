@@ -37,7 +37,7 @@ export interface ReminderJobs {
  * one scheduled job per tick across every API process and hands each job to one worker; the
  * deliveries themselves are claimed with row locks, so a second process never sends one twice.
  */
-export async function startReminderJobs(ctx: ServerContext): Promise<ReminderJobs> {
+export async function startReminderJobs(ctx: ServerContext, pollingIntervalSeconds = 2): Promise<ReminderJobs> {
   const boss = new PgBoss({ connectionString: ctx.config.databaseUrl, schema: 'pgboss', max: 2 });
   boss.on('error', (error) => ctx.log.error({ err: error }, 'reminder queue trouble'));
   await boss.start();
@@ -46,10 +46,10 @@ export async function startReminderJobs(ctx: ServerContext): Promise<ReminderJob
   await boss.schedule(REMINDER_QUEUE, '* * * * *');
   await boss.schedule(DIGEST_QUEUE, '0 8 * * 1', {}, { tz: 'UTC' });
   const sending = await sendingFor(ctx);
-  await boss.work(REMINDER_QUEUE, async () => {
+  await boss.work(REMINDER_QUEUE, { pollingIntervalSeconds }, async () => {
     await runDueReminders(ctx, sending);
   });
-  await boss.work(DIGEST_QUEUE, async () => {
+  await boss.work(DIGEST_QUEUE, { pollingIntervalSeconds }, async () => {
     await queueShelfDigests(ctx, ctx.clock.now());
     await runDueReminders(ctx, sending);
   });

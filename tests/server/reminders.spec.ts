@@ -1,6 +1,12 @@
 import { and, eq } from 'drizzle-orm';
 import { pushSubscriptions, reminderDeliveries, reminderPreferences, reminders } from '../../server/db/schema/index.js';
-import { runDueReminders, sendingFor } from '../../server/reminders/reminder-jobs.js';
+import {
+  REMINDER_QUEUE,
+  runDueReminders,
+  sendingFor,
+  startReminderJobs,
+} from '../../server/reminders/reminder-jobs.js';
+import { queueShelfDigests } from '../../server/reminders/shelf-digest.js';
 import { subscribe } from '../../server/reminders/reminder-settings.js';
 import { fanOutDueReminders, sendDueDeliveries, type Sending } from '../../server/reminders/reminder-delivery.js';
 import { addMember, makeAccount, makeWorkshop, type TestAccount } from '../support/accounts.js';
@@ -230,4 +236,49 @@ describe('cure reminders', () => {
       expect(sent.length).withContext(`Race pool ${i}`).toBe(3);
     }
   }, 30_000);
+
+  it('should send the weekly shelf digest once a week per member, naming what needs a look', async () => {
+    // A fresh workshop so only its own shelf counts: one part low (120 g left of 500, warn at 150).
+    const shelfClub = (await makeWorkshop(server.ctx, owner, 'Digest club')).id;
+    const shelf = api(server, owner, shelfClub);
+    const resin = await addMaterial(shelf, { name: 'Digest resin' });
+    await addContainer(shelf, resin, { part: 'A', sizeQty: 120, lowStockQty: 150 });
+    await addContainer(shelf, resin, { part: 'B', sizeQty: 500, lowStockQty: 150 });
+    const now = server.clock.now();
+    await queueShelfDigests(server.ctx, now);
+    await queueShelfDigests(server.ctx, now);
+    await tick();
+    const digest = await server.mail.waitFor(owner.email, (m) => m.text.includes('Digest resin'));
+    expect(digest.subject).toBe('One thing on the shelf needs a look');
+    expect(digest.text).toContain('Digest resin part A: low, 120 g left');
+    await tick();
+    await new Promise((resolve) => setTimeout(resolve, 300));
+    expect(mailTo(owner, 'Digest resin').length).toBe(1);
+  });
+
+  it('should run on pg-boss: a queued tick in either of two API processes sends what is due, once', async () => {
+    await choose(builder, ['push'], null);
+    await subscribe(server.ctx, builder.id, { ...push.subscribe('queue-phone'), label: '' });
+    await logPour('Queue pool');
+    server.clock.advanceMinutes(241);
+    const config = { ...server.ctx.config, databaseUrl: TEST_DATABASE_URL };
+    const other = openDatabase(TEST_DATABASE_URL);
+    const processes = [
+      await startReminderJobs({ ...server.ctx, config }, 0.5),
+      await startReminderJobs({ ...server.ctx, config, db: other.db, pool: other.pool }, 0.5),
+    ];
+    try {
+      await processes[0]!.boss.send(REMINDER_QUEUE, {});
+      await processes[1]!.boss.send(REMINDER_QUEUE, {});
+      const deadline = Date.now() + 15_000;
+      while (!push.received.some((p) => p.payload.includes('Queue pool')) && Date.now() < deadline) {
+        await new Promise((resolve) => setTimeout(resolve, 100));
+      }
+      await new Promise((resolve) => setTimeout(resolve, 1500));
+      expect(push.received.filter((p) => p.payload.includes('Queue pool on')).length).toBe(1);
+    } finally {
+      for (const running of processes) await running.stop();
+      await other.pool.end();
+    }
+  }, 40_000);
 });
