@@ -17,6 +17,8 @@ const WORDS: Readonly<Record<MutationType, string>> = {
   'container.stocktake': 'Stocktake recorded',
   'pour.create': 'Pour logged',
   'pour.delete': 'Pour deleted',
+  'photo.patch': 'Photo caption changed',
+  'photo.delete': 'Photo deleted',
 };
 
 /** A queued change in the modeller's words: what it does, and the name or title it carries, if any. */

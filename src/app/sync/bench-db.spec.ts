@@ -1,6 +1,6 @@
 import Dexie from 'dexie';
 import { v7 } from 'uuid';
-import { BenchDb, SCHEMA_V1 } from './bench-db';
+import { BenchDb, SCHEMA_V1, SCHEMA_V2 } from './bench-db';
 import type { LocalBuild, OutboxRow } from './synced-records';
 import { dropDatabase } from './sync-testing';
 
@@ -97,7 +97,7 @@ describe('BenchDb', () => {
 
       const upgraded = await db.outbox.get(seq as number);
 
-      expect(db.verno).toBe(2);
+      expect(db.verno).toBe(3);
       expect(upgraded).toEqual({ ...v1Row, seq: seq as number, state: 'waiting', undo: [] });
       expect(await db.outbox.where('[workshopId+state]').equals([WORKSHOP, 'waiting']).count()).toBe(1);
     });
@@ -110,6 +110,39 @@ describe('BenchDb', () => {
       old.close();
 
       expect(await db.builds.get(id)).toEqual(build(id));
+    });
+  });
+
+  describe('upgrading from version 2', () => {
+    it('should keep the records and the outbox, and add the photo tables, which keep a photo’s bytes', async () => {
+      const old = new Dexie(name);
+      old.version(2).stores(SCHEMA_V2);
+      const id = v7();
+      await old.table('builds').add(build(id));
+      const seq = (await old.table('outbox').add(queued(id))) as number;
+      old.close();
+
+      const bytes = new Uint8Array([0xff, 0xd8, 0xff, 0xe0, 1, 2, 3]);
+      await db.photoUploads.add({
+        id: v7(),
+        workshopId: WORKSHOP,
+        blob: new Blob([bytes], { type: 'image/jpeg' }),
+        fileName: 'riverbed.jpg',
+        fields: { buildId: id, stepId: null, pourId: null, caption: '' },
+        state: 'waiting',
+        attempts: 0,
+        lastError: null,
+        bytesSent: 0,
+        bytesTotal: bytes.length,
+        createdAt: NOW,
+      });
+
+      expect(db.verno).toBe(3);
+      expect(await db.builds.get(id)).toEqual(build(id));
+      expect((await db.outbox.get(seq))?.state).toBe('waiting');
+      const [upload] = await db.photoUploads.where('[workshopId+state]').equals([WORKSHOP, 'waiting']).toArray();
+      expect(new Uint8Array(await upload!.blob.arrayBuffer())).toEqual(bytes);
+      expect(await db.photos.where('buildId').equals(id).count()).toBe(0);
     });
   });
 });

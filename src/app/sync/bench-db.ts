@@ -6,9 +6,11 @@ import {
   type LocalContainer,
   type LocalLedgerEntry,
   type LocalMaterial,
+  type LocalPhoto,
   type LocalPour,
   type LocalStep,
   type OutboxRow,
+  type PhotoUploadRow,
   type SyncedFields,
   type SyncStateRow,
 } from './synced-records';
@@ -31,13 +33,23 @@ export const SCHEMA_V1 = {
   syncState: 'workshopId',
 } as const;
 
-const SCHEMA_V2 = {
+export const SCHEMA_V2 = {
   ...SCHEMA_V1,
   // A mutation id is queued once; rows are found by workshop and state, oldest (lowest seq) first.
   outbox: '++seq, workshopId, state, [workshopId+state], &mutationId',
 };
 
-/** The records of every workshop this device has opened, the changes not yet pushed, and where each pull stopped. */
+const SCHEMA_V3 = {
+  ...SCHEMA_V2,
+  photos: 'id, workshopId, buildId, stepId, pourId, changeNumber',
+  // Sent oldest first, one workshop at a time.
+  photoUploads: 'id, workshopId, state, [workshopId+state], createdAt',
+};
+
+/**
+ * The records of every workshop this device has opened, the changes not yet pushed, the photos not yet
+ * uploaded, and where each pull stopped.
+ */
 @Injectable({ providedIn: 'root', useFactory: () => new BenchDb(inject(BENCH_DB_NAME)) })
 export class BenchDb extends Dexie {
   declare readonly builds: EntityTable<LocalBuild, 'id'>;
@@ -46,6 +58,8 @@ export class BenchDb extends Dexie {
   declare readonly containers: EntityTable<LocalContainer, 'id'>;
   declare readonly ledgerEntries: EntityTable<LocalLedgerEntry, 'id'>;
   declare readonly pours: EntityTable<LocalPour, 'id'>;
+  declare readonly photos: EntityTable<LocalPhoto, 'id'>;
+  declare readonly photoUploads: EntityTable<PhotoUploadRow, 'id'>;
   declare readonly outbox: EntityTable<OutboxRow, 'seq'>;
   declare readonly syncState: EntityTable<SyncStateRow, 'workshopId'>;
 
@@ -64,9 +78,11 @@ export class BenchDb extends Dexie {
             row.undo ??= [];
           }),
       );
+    // New tables only: nothing stored before changes.
+    this.version(3).stores(SCHEMA_V3);
   }
 
-  /** The six tables of synced records, for transactions and loops over all of them. */
+  /** The tables of synced records, for transactions and loops over all of them. */
   get syncedTables(): Table<SyncedFields, string>[] {
     return SYNCED_TABLES.map((name) => this.table<SyncedFields, string>(name));
   }

@@ -8,6 +8,8 @@ import { ChangePull } from './change-pull';
 import { OfflineStore } from './offline-store';
 import type { LocalContainer, LocalLedgerEntry, LocalMaterial, LocalPour } from './synced-records';
 import { dropDatabase, serverBuild, SyncServer, TEST_DATA_SHEET } from './sync-testing';
+import { BuildPhotos } from '../photos/build-photos';
+import { picked, pictureFile, serverPhoto } from '../photos/photos-testing';
 
 const WORKSHOP = v7();
 const OTHER_WORKSHOP = v7();
@@ -269,6 +271,67 @@ describe('ChangePull', () => {
       expect(await db.ledgerEntries.where({ pourId: deleted }).count()).toBe(0);
       expect(await db.ledgerEntries.where({ pourId: waiting }).count()).toBe(2);
       expect(await stock()).toEqual({ [partA]: 490.1, [partB]: 490.1 });
+    });
+  });
+
+  describe('photos', () => {
+    const photoChange = (record: ReturnType<typeof serverPhoto>): PulledChange => ({
+      entity: 'photo',
+      changeNumber: record.changeNumber,
+      record: { ...record },
+    });
+
+    it('should store the photos pulled and remove those the server deleted', async () => {
+      const [buildId, kept, deleted] = [v7(), v7(), v7()];
+      await db.photos.put({ ...serverPhoto(WORKSHOP, deleted, buildId, 2), caption: 'Soon gone' });
+
+      const pulled = pull.pull(WORKSHOP);
+      const changes = [
+        photoChange(serverPhoto(WORKSHOP, kept, buildId, 3, { caption: 'First layer' })),
+        photoChange(serverPhoto(WORKSHOP, deleted, buildId, 4, { deletedAt: '2025-03-02T09:00:00.000Z' })),
+      ];
+      (await server.nextPull(WORKSHOP, 0)).flush(page(changes, 4));
+      await pulled;
+
+      expect(await db.photos.get(kept)).toEqual(serverPhoto(WORKSHOP, kept, buildId, 3, { caption: 'First layer' }));
+      expect(await db.photos.get(deleted)).toBeUndefined();
+    });
+
+    it("should drop the bytes kept for an upload once the server's record of the photo arrives", async () => {
+      const buildId = v7();
+      const [sent, waiting, deletedElsewhere] = [
+        picked(await pictureFile('sent.jpg')),
+        picked(await pictureFile('waiting.jpg')),
+        picked(await pictureFile('deleted.jpg')),
+      ];
+      await TestBed.inject(BuildPhotos).add(WORKSHOP, { buildId }, [sent, waiting, deletedElsewhere]);
+
+      const pulled = pull.pull(WORKSHOP);
+      const changes = [
+        photoChange(serverPhoto(WORKSHOP, sent.id, buildId, 5)),
+        photoChange(serverPhoto(WORKSHOP, deletedElsewhere.id, buildId, 6, { deletedAt: '2025-03-02T09:00:00.000Z' })),
+      ];
+      (await server.nextPull(WORKSHOP, 0)).flush(page(changes, 6));
+      await pulled;
+
+      expect((await db.photoUploads.toArray()).map((upload) => upload.id)).toEqual([waiting.id]);
+      expect((await db.photos.get(sent.id))?.pending).toBeUndefined();
+      expect(await db.photos.get(deletedElsewhere.id)).toBeUndefined();
+      expect((await db.photos.get(waiting.id))?.pending).toBeTrue();
+    });
+
+    it('should keep photos not yet sent when the server asks to start over', async () => {
+      const waiting = picked(await pictureFile('waiting.jpg'));
+      await TestBed.inject(BuildPhotos).add(WORKSHOP, { buildId: v7() }, [waiting]);
+      await db.photos.put(serverPhoto(WORKSHOP, v7(), v7(), 2));
+
+      const pulled = pull.pull(WORKSHOP);
+      (await server.nextPull(WORKSHOP, 0)).flush({ startOver: true, reason: 'cursor_unknown' });
+      (await server.nextPull(WORKSHOP, 0)).flush(page([], 0));
+      await pulled;
+
+      expect((await db.photos.toArray()).map((photo) => photo.id)).toEqual([waiting.id]);
+      expect(await db.photoUploads.count()).toBe(1);
     });
   });
 });

@@ -12,7 +12,8 @@ const PAGE_SIZE = 1000;
  * The server's copy of a record replaces this device's, even one with changes still queued here: those
  * are sent again on the next push and come back with the pull after it. A pour logged here drew stock
  * under ids of this device's making; the server's uses of it have their own, so when the server's pour
- * arrives the provisional uses go, and the stock here is the server's sum again.
+ * arrives the provisional uses go, and the stock here is the server's sum again. A photo uploaded from here
+ * is shown from the server's copies once its record arrives, so the bytes kept for the upload go then.
  */
 @Injectable({ providedIn: 'root' })
 export class ChangePull {
@@ -49,9 +50,11 @@ export class ChangePull {
       const table = TABLE_OF[change.entity] as SyncedTableName | undefined;
       if (table !== undefined) latest.set(`${table}/${change.record.id}`, [table, change.record]);
     }
-    const pourIds = [...latest.values()].filter(([table]) => table === 'pours').map(([, record]) => record.id);
+    const idsIn = (name: SyncedTableName) =>
+      [...latest.values()].filter(([table]) => table === name).map(([, record]) => record.id);
+    const pourIds = idsIn('pours');
     const { db } = this;
-    await db.transaction('rw', [...db.syncedTables, db.syncState], async () => {
+    await db.transaction('rw', [...db.syncedTables, db.syncState, db.photoUploads], async () => {
       await db.ledgerEntries
         .where('pourId')
         .anyOf(pourIds)
@@ -66,6 +69,8 @@ export class ChangePull {
         await db.table(name).bulkPut(records.filter((record) => record.deletedAt === null));
         await db.table(name).bulkDelete(tombstones);
       }
+      // The server holds these photos (or deleted them): the bytes kept here for the upload can go.
+      await db.photoUploads.bulkDelete(idsIn('photos'));
       await db.syncState.put({ workshopId, cursor, lastSyncedAt: new Date().toISOString() });
     });
   }

@@ -10,6 +10,7 @@ import {
   newMaterialSchema,
   newPourSchema,
   newStepSchema,
+  photoPatchSchema,
   planPour,
   stepPatchSchema,
   stockShortMessage,
@@ -211,6 +212,15 @@ export class OfflineStore {
   }
   async deletePour(workshopId: string, id: string): Promise<void> {
     return this.remove(workshopId, 'pours', { type: 'pour.delete', mutationId: v7(), recordId: id });
+  }
+
+  /** For a photo the server holds; one whose upload still waits is changed with its upload instead. */
+  async patchPhoto(workshopId: string, id: string, patch: Input<typeof photoPatchSchema>): Promise<void> {
+    const data = photoPatchSchema.parse(patch);
+    return this.patch(workshopId, 'photos', { type: 'photo.patch', mutationId: v7(), recordId: id, data });
+  }
+  async deletePhoto(workshopId: string, id: string): Promise<void> {
+    return this.remove(workshopId, 'photos', { type: 'photo.delete', mutationId: v7(), recordId: id });
   }
 
   /** Throws a rejected change away and puts back what it changed on this device, where nothing newer did. */

@@ -1,9 +1,12 @@
-import { provideHttpClient } from '@angular/common/http';
+import { HttpBackend, provideHttpClient } from '@angular/common/http';
 import { HttpTestingController, provideHttpClientTesting } from '@angular/common/http/testing';
 import { TestBed } from '@angular/core/testing';
 import type { Mutation, SessionView } from '@benchtide/shared';
 import { v7 } from 'uuid';
 import { AccountSession } from '../account/account-session';
+import { BuildPhotos } from '../photos/build-photos';
+import { PHOTO_UPLOAD_BACKEND } from '../photos/photo-uploader';
+import { picked, pictureFile, serverPhoto } from '../photos/photos-testing';
 import { BENCH_DB_NAME, BenchDb } from './bench-db';
 import { fixesFor } from './change-fixes';
 import { OfflineStore } from './offline-store';
@@ -37,6 +40,7 @@ describe('SyncEngine', () => {
         provideHttpClient(),
         provideHttpClientTesting(),
         { provide: BENCH_DB_NAME, useValue: `sync-engine-spec-${v7()}` },
+        { provide: PHOTO_UPLOAD_BACKEND, useExisting: HttpBackend },
       ],
     });
     TestBed.inject(AccountSession).keep(SESSION);
@@ -372,6 +376,124 @@ describe('SyncEngine', () => {
 
       expect(await db.builds.get(id)).toBeUndefined();
       await until(() => engine.rejected().length === 0, 'the discarded change to go');
+    });
+  });
+
+  describe('photos', () => {
+    const isUpload = (request: { method: string }) => request.method === 'PUT';
+
+    async function addPhoto(buildId: string) {
+      const photo = picked(await pictureFile('bench.jpg'));
+      await TestBed.inject(BuildPhotos).add(WORKSHOP, { buildId }, [photo]);
+      return photo;
+    }
+
+    it('should send waiting photos after the push, so their build is on the server first, and pull after them', async () => {
+      const buildId = await createBuild();
+      const photo = await addPhoto(buildId);
+
+      const synced = engine.syncNow();
+      const push = await server.nextPush();
+      expect(http.match(isUpload)).toEqual([]);
+      server.answer(push);
+      const upload = await until(() => http.match(isUpload)[0], 'the upload');
+      expect(upload.request.url).toBe(`/api/workshops/${WORKSHOP}/photos/${photo.id}`);
+      expect(http.match((request) => request.url === '/api/sync/pull')).toEqual([]);
+      upload.flush(serverPhoto(WORKSHOP, photo.id, buildId, 2), { status: 201, statusText: 'Created' });
+      const changes = [{ entity: 'photo', changeNumber: 2, record: serverPhoto(WORKSHOP, photo.id, buildId, 2) }];
+      (await server.nextPull(WORKSHOP, 0)).flush({ startOver: false, changes, cursor: 2, more: false });
+      await synced;
+
+      expect(await db.photoUploads.count()).toBe(0);
+      expect((await db.photos.get(photo.id))?.changeNumber).toBe(2);
+      expect(engine.lastError()).toBeNull();
+    });
+
+    describe('when a photo could not go', () => {
+      beforeEach(() => jasmine.clock().install());
+      afterEach(() => jasmine.clock().uninstall());
+
+      it('should still pull, say why, and send the photo again a little later', async () => {
+        const photo = await addPhoto(v7());
+
+        const synced = engine.syncNow();
+        (await until(() => http.match(isUpload)[0], 'the upload')).flush(BUSY, {
+          status: 503,
+          statusText: 'Service Unavailable',
+        });
+        (await server.nextPull(WORKSHOP, 0)).flush(NOTHING_NEW);
+        await synced;
+
+        expect(engine.lastError()).toBe(BUSY.error.message);
+        expect((await db.photoUploads.get(photo.id))?.state).toBe('waiting');
+        jasmine.clock().tick(retryDelayMs(1, () => 1));
+        (await until(() => http.match(isUpload)[0], 'the upload sent again')).flush(
+          serverPhoto(WORKSHOP, photo.id, v7(), 3),
+          { status: 201, statusText: 'Created' },
+        );
+        (await server.nextPull(WORKSHOP, 0)).flush(NOTHING_NEW);
+        await until(() => engine.lastError() === null, 'the retry to go through');
+        expect(await db.photoUploads.count()).toBe(0);
+      });
+
+      it('should treat a 401 on an upload as the end of the session', async () => {
+        await addPhoto(v7());
+
+        const synced = engine.syncNow();
+        (await until(() => http.match(isUpload)[0], 'the upload')).flush(SIGNED_OUT, {
+          status: 401,
+          statusText: 'Unauthorized',
+        });
+        (await until(() => http.match('/api/account')[0], 'the app to ask who is signed in')).flush(SIGNED_OUT, {
+          status: 401,
+          statusText: 'Unauthorized',
+        });
+        await synced;
+
+        expect(engine.sessionEnded()).toBeTrue();
+        expect((await db.photoUploads.toArray()).map((row) => row.state)).toEqual(['waiting']);
+      });
+    });
+
+    it('should refuse the waiting photos of a workshop the account left, without sending them', async () => {
+      await createBuild();
+      const photo = await addPhoto(v7());
+
+      const synced = engine.syncNow();
+      (await server.nextPush(WORKSHOP)).flush(
+        { error: { code: 'workshop_unknown', message: 'You are not a member of this workshop.' } },
+        { status: 404, statusText: 'Not Found' },
+      );
+      (await until(() => http.match('/api/account')[0], 'the workshops to be asked for')).flush({
+        ...SESSION,
+        workshops: [],
+      });
+      await synced;
+
+      http.expectNone(isUpload);
+      expect((await db.photoUploads.get(photo.id))?.state).toBe('refused');
+    });
+
+    it('should send a photo as soon as it is added, once syncing runs on its own', async () => {
+      jasmine.clock().install();
+      try {
+        engine.start();
+        jasmine.clock().tick(0);
+        (await server.nextPull()).flush(NOTHING_NEW);
+        await until(() => !engine.syncing(), 'the first sync to end');
+
+        const photo = await addPhoto(v7());
+
+        (await until(() => http.match(isUpload)[0], 'the upload')).flush(serverPhoto(WORKSHOP, photo.id, v7(), 2), {
+          status: 201,
+          statusText: 'Created',
+        });
+        (await server.nextPull()).flush(NOTHING_NEW);
+        await until(() => !engine.syncing(), 'the sync to end');
+        expect(await db.photoUploads.count()).toBe(0);
+      } finally {
+        jasmine.clock().uninstall();
+      }
     });
   });
 });

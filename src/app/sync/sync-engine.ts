@@ -7,6 +7,8 @@ import { v7 } from 'uuid';
 import { AccountSession } from '../account/account-session';
 import { apiError } from '../core/api-error';
 import { Connectivity } from '../core/connectivity';
+import { BuildPhotos } from '../photos/build-photos';
+import { PhotoUploader } from '../photos/photo-uploader';
 import { BenchDb } from './bench-db';
 import { fixedMutation, type ChangeFix } from './change-fixes';
 import { ChangePull } from './change-pull';
@@ -21,8 +23,9 @@ const SESSION_ENDED = 'You are signed out. Sign in again to send the changes kep
 const FAILED = 'Syncing stopped on this device. It will try again.';
 
 /**
- * Keeps this device and the server in step: pushes each workshop's outbox, then pulls what changed. Runs
- * on demand, on start, every 3 minutes, when the connection returns, after each change queued here, and
+ * Keeps this device and the server in step: pushes each workshop's outbox, sends its waiting photos, then
+ * pulls what changed. Runs
+ * on demand, on start, every 3 minutes, when the connection returns, after each change or photo queued here, and
  * after a failure with growing waits (never sooner than a busy server asked). One tab syncs at a time; the
  * others see its writes live.
  */
@@ -32,6 +35,8 @@ export class SyncEngine {
   private readonly store = inject(OfflineStore);
   private readonly outbox = inject(OutboxPush);
   private readonly changes = inject(ChangePull);
+  private readonly photos = inject(BuildPhotos);
+  private readonly uploader = inject(PhotoUploader);
   private readonly session = inject(AccountSession);
   private readonly connectivity = inject(Connectivity);
   private readonly errorHandler = inject(ErrorHandler);
@@ -77,7 +82,7 @@ export class SyncEngine {
     if (this.started) return;
     this.started = true;
     const signIns = toObservable(this.session.session, { injector: this.injector }).pipe(skip(1));
-    merge(timer(0, SYNC_EVERY_MS), fromEvent(window, 'online'), this.store.changes, signIns)
+    merge(timer(0, SYNC_EVERY_MS), fromEvent(window, 'online'), this.store.changes, this.photos.added, signIns)
       .pipe(takeUntilDestroyed(this.destroyRef))
       .subscribe(() => void this.syncNow());
   }
@@ -150,21 +155,32 @@ export class SyncEngine {
     }
   }
 
-  /** Every workshop with queued changes, and every workshop of the account; one failing does not stop the rest. */
+  /**
+   * Every workshop with queued changes or photos, and every workshop of the account; one failing does not
+   * stop the rest. A photo that could not be sent does not hold back the pull: it is tried again after it.
+   */
   private async syncAll(): Promise<void> {
     const pushTo = (await this.db.outbox.orderBy('workshopId').uniqueKeys()) as string[];
+    const uploadTo = (await this.db.photoUploads.orderBy('workshopId').uniqueKeys()) as string[];
     const pullFrom = this.session.workshops().map((workshop) => workshop.id);
     let failure: unknown = null;
     let left = false;
-    for (const workshopId of new Set([...pushTo, ...pullFrom])) {
+    for (const workshopId of new Set([...pushTo, ...uploadTo, ...pullFrom])) {
       try {
         const pushed = await this.outbox.push(workshopId);
         if (pushed !== 'idle') this.ended.set(false);
-        // Its waiting changes are now shown as refused; there is nothing more to pull from it.
-        if (pushed === 'not-a-member') left = true;
-        if (pushed === 'not-a-member' || !pullFrom.includes(workshopId)) continue;
-        await this.changes.pull(workshopId);
-        this.ended.set(false);
+        // Its waiting changes are now shown as refused; there is nothing more to send to it or pull from it.
+        if (pushed === 'not-a-member') {
+          left = true;
+          await this.uploader.refuseAll(workshopId);
+          continue;
+        }
+        const unsent = await this.uploader.send(workshopId);
+        if (pullFrom.includes(workshopId)) {
+          await this.changes.pull(workshopId);
+          this.ended.set(false);
+        }
+        if (unsent !== null) throw unsent;
       } catch (error) {
         if (isSessionEnd(error)) throw error;
         failure ??= error;

@@ -5,6 +5,7 @@ import { TestBed, type ComponentFixture } from '@angular/core/testing';
 import { MatIconHarness } from '@angular/material/icon/testing';
 import { provideRouter } from '@angular/router';
 import { BenchIcons } from '../core/bench-icons';
+import { BuildPhotos } from '../photos/build-photos';
 import { SyncEngine } from './sync-engine';
 import { SyncStatus } from './sync-status';
 import type { OutboxRow } from './synced-records';
@@ -19,17 +20,30 @@ class EngineSignals {
   readonly lastSyncedAt = signal<string | null>(null);
 }
 
+/** The photo uploads' counts, set by each spec. */
+class PhotoCounts {
+  readonly waitingCount = signal(0);
+  readonly refusedCount = signal(0);
+}
+
 const REJECTED = { seq: 4, state: 'rejected', reason: { code: 'forbidden', message: 'Viewers cannot add builds.' } };
 
 describe('SyncStatus', () => {
   let engine: EngineSignals;
+  let photos: PhotoCounts;
   let fixture: ComponentFixture<SyncStatus>;
 
   beforeEach(() => {
     engine = new EngineSignals();
+    photos = new PhotoCounts();
     TestBed.configureTestingModule({
       imports: [SyncStatus],
-      providers: [provideHttpClient(), provideRouter([]), { provide: SyncEngine, useValue: engine }],
+      providers: [
+        provideHttpClient(),
+        provideRouter([]),
+        { provide: SyncEngine, useValue: engine },
+        { provide: BuildPhotos, useValue: photos },
+      ],
     });
     TestBed.inject(BenchIcons).register();
     fixture = TestBed.createComponent(SyncStatus);
@@ -75,6 +89,19 @@ describe('SyncStatus', () => {
       expect(await shown()).toEqual({ label: 'Needs attention', icon: 'caution', attention: true });
     });
 
+    it('should count the photos waiting to be sent with the changes', async () => {
+      engine.waitingCount.set(1);
+      photos.waitingCount.set(2);
+
+      expect(await shown()).toEqual({ label: '3 waiting', icon: 'timer', attention: false });
+    });
+
+    it('should ask for attention when the server refused a photo', async () => {
+      photos.refusedCount.set(1);
+
+      expect(await shown()).toEqual({ label: 'Needs attention', icon: 'caution', attention: true });
+    });
+
     it('should ask for attention when the session has ended', async () => {
       engine.sessionEnded.set(true);
 
@@ -104,6 +131,15 @@ describe('SyncStatus', () => {
       expect(description()).toBe(
         'Sign in again to send the changes waiting on this device. 2 changes could not be saved. ' +
           'Last synced at 14:05, 1 Mar. Opens the changes kept on this device.',
+      );
+    });
+
+    it('should say how many photos could not be sent', async () => {
+      photos.refusedCount.set(2);
+      await fixture.whenStable();
+
+      expect(description()).toBe(
+        '2 photos could not be sent. Not synced yet on this device. Opens the changes kept on this device.',
       );
     });
 

@@ -2,6 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/c
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 import { format } from 'date-fns';
+import { BuildPhotos } from '../photos/build-photos';
 import { SyncEngine } from './sync-engine';
 
 interface Status {
@@ -70,12 +71,13 @@ let nextId = 0;
 })
 export class SyncStatus {
   private readonly engine = inject(SyncEngine);
+  private readonly photos = inject(BuildPhotos);
 
   protected readonly syncing = this.engine.syncing;
   protected readonly hintId = `bt-sync-status-hint-${nextId++}`;
   protected readonly status = computed<Status>(() => {
-    const waiting = this.engine.waitingCount();
-    if (this.engine.rejected().length > 0 || this.engine.sessionEnded()) {
+    const waiting = this.engine.waitingCount() + this.photos.waitingCount();
+    if (this.engine.rejected().length > 0 || this.photos.refusedCount() > 0 || this.engine.sessionEnded()) {
       return { icon: 'caution', label: 'Needs attention', attention: true };
     }
     if (!this.engine.online()) {
@@ -87,10 +89,16 @@ export class SyncStatus {
   /** For screen readers: what needs doing, and when this device last heard from the server. */
   protected readonly hint = computed(() => {
     const rejected = this.engine.rejected().length;
+    const refusedPhotos = this.photos.refusedCount();
     const syncedAt = this.engine.lastSyncedAt();
     return [
       this.engine.sessionEnded() ? 'Sign in again to send the changes waiting on this device.' : '',
       rejected === 1 ? '1 change could not be saved.' : rejected > 1 ? `${rejected} changes could not be saved.` : '',
+      refusedPhotos === 1
+        ? '1 photo could not be sent.'
+        : refusedPhotos > 1
+          ? `${refusedPhotos} photos could not be sent.`
+          : '',
       syncedAt === null ? 'Not synced yet on this device.' : `Last synced at ${format(syncedAt, 'HH:mm, d MMM')}.`,
       'Opens the changes kept on this device.',
     ]

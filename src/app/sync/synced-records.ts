@@ -64,7 +64,29 @@ export interface LocalPour extends SyncedFields {
   loggedBy?: string | null;
 }
 
-export const SYNCED_TABLES = ['builds', 'steps', 'materials', 'containers', 'ledgerEntries', 'pours'] as const;
+/** A bench photo: the server's record, or this device's own while its upload waits (then `pending`, with no size yet). */
+export interface LocalPhoto extends SyncedFields {
+  buildId: string;
+  stepId: string | null;
+  pourId: string | null;
+  caption: string;
+  /** When the camera took it, as an ISO instant; null when the file does not say. */
+  takenAt: string | null;
+  width: number | null;
+  height: number | null;
+  contentHash: string | null;
+  uploadedBy: string | null;
+}
+
+export const SYNCED_TABLES = [
+  'builds',
+  'steps',
+  'materials',
+  'containers',
+  'ledgerEntries',
+  'pours',
+  'photos',
+] as const;
 export type SyncedTableName = (typeof SYNCED_TABLES)[number];
 
 export const TABLE_OF: Readonly<Record<SyncedEntity, SyncedTableName>> = {
@@ -74,6 +96,7 @@ export const TABLE_OF: Readonly<Record<SyncedEntity, SyncedTableName>> = {
   container: 'containers',
   ledgerEntry: 'ledgerEntries',
   pour: 'pours',
+  photo: 'photos',
 };
 
 export type RejectReason = Extract<MutationResult, { status: 'rejected' }>['reason'];
@@ -100,6 +123,29 @@ export interface OutboxRow {
   state: 'waiting' | 'rejected';
   reason?: RejectReason;
   undo: RecordUndo[];
+}
+
+export type PhotoUploadState = 'waiting' | 'sending' | 'refused';
+
+/**
+ * A photo chosen on this device and not yet on the server: the bytes themselves, what to send with them,
+ * and how sending them goes. The row goes once the server holds the photo; its local record stays.
+ */
+export interface PhotoUploadRow {
+  /** The photo's own id, made here: a retried upload goes under the same id. */
+  id: string;
+  workshopId: string;
+  blob: Blob;
+  fileName: string;
+  fields: { buildId: string; stepId: string | null; pourId: string | null; caption: string };
+  state: PhotoUploadState;
+  /** How many times sending began. */
+  attempts: number;
+  /** Why the last try failed or was refused; `status` is the HTTP status, 0 for no answer. */
+  lastError: { code: string; message: string; status: number } | null;
+  bytesSent: number;
+  bytesTotal: number;
+  createdAt: string;
 }
 
 export interface SyncStateRow {
