@@ -5,7 +5,7 @@
  * scheduling it twice, or rescheduling it, never makes a second reminder.
  */
 import type { CureTimeline } from './cure.js';
-import { pourMilestones, type MilestoneKind } from './pour-milestones.js';
+import { pourMilestones, type MilestoneKind, type PourMilestone } from './pour-milestones.js';
 import type { ReminderKind } from './reminder-preferences.js';
 
 export type PourReminderKind = Extract<ReminderKind, MilestoneKind>;
@@ -31,8 +31,13 @@ export function pourReminders(
   cure: Pick<CureTimeline, 'layers' | 'demouldAtMs' | 'fullCureAtMs'>,
   label: PourLabel,
 ): PourReminder[] {
+  return remindersOf(pourMilestones(cure), label);
+}
+
+/** The same, from moments already worked out. */
+export function remindersOf(milestones: readonly PourMilestone[], label: PourLabel): PourReminder[] {
   const what = label.feature.trim() ? `${label.feature.trim()} on ${label.buildName}` : label.buildName;
-  return pourMilestones(cure)
+  return milestones
     .filter((milestone) => REMINDED.includes(milestone.kind))
     .map((milestone) => {
       const kind = milestone.kind as PourReminderKind;
@@ -53,3 +58,8 @@ const BODIES: Record<PourReminderKind, (what: string) => string> = {
   demould: (what) => `${what} can come out of its mould or dam. Handle it gently until full cure.`,
   'full-cure': (what) => `${what} has fully cured, by the estimate from the data sheet and room temperature.`,
 };
+
+/** Names one reminder of one pour wherever it is shown, so a notification from the server and one from the open app replace each other. */
+export function pourReminderTag(pourId: string, key: string): string {
+  return `pour:${pourId}:${key}`;
+}

@@ -1,4 +1,5 @@
 import { and, asc, eq, isNull, lte } from 'drizzle-orm';
+import { pourReminderTag } from '../../shared/pour-reminders.js';
 import { afterQuietHours } from '../../shared/reminder-preferences.js';
 import type { ServerContext } from '../context.js';
 import { pours } from '../db/schema/pours.js';
@@ -39,7 +40,9 @@ export async function fanOutDueReminders(ctx: ServerContext, now: Date): Promise
           url: `/builds/${buildId}?pour=${reminder.pourId}`,
         };
         const people = await recipientsOf(tx, reminder.workshopId, reminder.kind);
-        await addDeliveries(tx, `pour:${reminder.id}`, people, message, reminder.dueAt, now, reminder.id);
+        // The same subject the open app uses for its own notification, so one replaces the other.
+        const subject = pourReminderTag(reminder.pourId, reminder.key);
+        await addDeliveries(tx, subject, people, message, reminder.dueAt, now, reminder.id);
       }
       await tx
         .update(reminders)

@@ -74,7 +74,7 @@ export const reminders = pgTable(
 export const reminderDeliveries = pgTable(
   'reminder_deliveries',
   {
-    /** `pour:<reminder id>` or `digest:<workshop id>:<ISO week>`. */
+    /** `pour:<pour id>:<reminder key>` or `digest:<workshop id>:<ISO week>`. */
     subject: text('subject').notNull(),
     userId: uuid('user_id')
       .notNull()
