@@ -12,6 +12,7 @@ import { healthRoutes } from './health/health-routes.js';
 import { openApiRoutes } from './openapi/openapi-routes.js';
 import { buildRoutes } from './builds/build-routes.js';
 import { costRoutes } from './costs/cost-routes.js';
+import { photoRoutes } from './photos/photo-routes.js';
 import { pourRoutes } from './pours/pour-routes.js';
 import { shelfRoutes } from './shelf/shelf-routes.js';
 import { syncRoutes } from './sync/sync-routes.js';
@@ -66,6 +67,7 @@ export function createApp(ctx: ServerContext): Express {
   api.use(buildRoutes(ctx));
   api.use(shelfRoutes(ctx));
   api.use(pourRoutes(ctx));
+  api.use(photoRoutes(ctx));
   api.use(costRoutes(ctx));
   api.use(syncRoutes(ctx));
   api.use(apiNotFound);

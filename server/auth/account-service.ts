@@ -3,6 +3,7 @@ import type { SessionView } from '../../shared/account-schemas.js';
 import type { ServerContext } from '../context.js';
 import { AppError } from '../core/app-error.js';
 import { memberships, users, workshops } from '../db/schema/index.js';
+import { copyKeysOf, removeCopies } from '../photos/photo-records.js';
 import { workshopsOf } from '../workshops/workshop-service.js';
 import { hashPassword, refuseCommonPassword, verifyPassword } from './passwords.js';
 
@@ -52,13 +53,13 @@ export async function changePassword(
 }
 
 /**
- * Deleting an account deletes the workshops only it belongs to, with their builds. Where others
- * remain and it is the only owner, deletion waits until it hands ownership on: nothing another
- * member relies on disappears without an owner's choice.
+ * Deleting an account deletes the workshops only it belongs to, with their builds and the files
+ * of their photos. Where others remain and it is the only owner, deletion waits until it hands
+ * ownership on: nothing another member relies on disappears without an owner's choice.
  */
 export async function deleteAccount(ctx: ServerContext, userId: string, password: string): Promise<void> {
   await checkPassword(ctx, userId, password, 'password');
-  await ctx.db.transaction(async (tx) => {
+  const photoCopies = await ctx.db.transaction(async (tx) => {
     const mine = await tx
       .select({
         workshopId: memberships.workshopId,
@@ -80,7 +81,10 @@ export async function deleteAccount(ctx: ServerContext, userId: string, password
       );
     }
     const onlyMine = mine.filter((row) => row.members === 1).map((row) => row.workshopId);
+    const keys = await copyKeysOf(tx, onlyMine);
     if (onlyMine.length > 0) await tx.delete(workshops).where(inArray(workshops.id, onlyMine));
     await tx.delete(users).where(and(eq(users.id, userId)));
+    return keys;
   });
+  await removeCopies(ctx, photoCopies);
 }

@@ -2,11 +2,14 @@ import { and, eq, isNull } from 'drizzle-orm';
 import type { z } from 'zod';
 import type { buildPatchSchema, newBuildSchema, newStepSchema, stepPatchSchema } from '../../shared/domain-schemas.js';
 import type { ServerContext } from '../context.js';
-import { builds, buildSteps } from '../db/schema/index.js';
+import { builds, buildSteps, photos } from '../db/schema/index.js';
+import { checkCover, removeCopies, tombstonePhotos } from '../photos/photo-records.js';
 import {
+  afterCommit,
   insertRecord,
   liveRecord,
   patchRecord,
+  tombstone,
   writeRecords,
   type RecordKind,
   recordRemover,
@@ -49,9 +52,11 @@ export function createBuild(
   workshopId: string,
   input: z.output<typeof newBuildSchema>,
 ) {
-  return writeRecords(ctx, userId, workshopId, (tx, changeNumber) =>
-    insertRecord(tx, BUILD, { ...withFootprint(input), workshopId, changeNumber, createdBy: userId }),
-  );
+  return writeRecords(ctx, userId, workshopId, async (tx, changeNumber) => {
+    // A new build has no photos yet, so a cover given with it names no photo of it.
+    if (input.coverPhotoId) await checkCover(tx, workshopId, input.id, input.coverPhotoId);
+    return insertRecord(tx, BUILD, { ...withFootprint(input), workshopId, changeNumber, createdBy: userId });
+  });
 }
 
 export function updateBuild(
@@ -63,6 +68,7 @@ export function updateBuild(
 ) {
   return writeRecords(ctx, userId, workshopId, async (tx, changeNumber) => {
     const current = (await liveRecord(tx, workshopId, BUILD, id)) as typeof builds.$inferSelect;
+    if (patch.coverPhotoId) await checkCover(tx, workshopId, id, patch.coverPhotoId);
     // A new scale or a new real size moves the base; a new base size moves the real footprint.
     const sizeChanged = ['scaleRatio', 'baseWidthMm', 'baseDepthMm', 'realWidthMm', 'realDepthMm'].some(
       (key) => key in patch,
@@ -80,7 +86,14 @@ export function updateBuild(
   });
 }
 
-export const deleteBuild = recordRemover(BUILD);
+/** A deleted build takes its photos with it: tombstoned with it, their copies removed once that commits. */
+export async function deleteBuild(ctx: ServerContext, userId: string, workshopId: string, id: string) {
+  const keys = await writeRecords(ctx, userId, workshopId, async (tx, changeNumber) => {
+    await tombstone(tx, workshopId, BUILD, id, changeNumber);
+    return tombstonePhotos(tx, eq(photos.buildId, id), changeNumber);
+  });
+  await afterCommit(ctx, () => removeCopies(ctx, keys));
+}
 
 export function createStep(
   ctx: ServerContext,

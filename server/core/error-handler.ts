@@ -20,7 +20,9 @@ export const apiNotFound: RequestHandler = (req, _res, next) => {
   next(new AppError(404, 'not_found', `There is no API route ${req.method} ${req.path}.`));
 };
 
-export const errorHandler: ErrorRequestHandler = (error: unknown, req, res, _next) => {
+export const errorHandler: ErrorRequestHandler = (error: unknown, req, res, next) => {
+  // A streamed answer that fails halfway cannot become an error body; Express closes the connection.
+  if (res.headersSent) return next(error);
   if (error instanceof AppError) {
     if (error.retryAfterMinutes !== undefined) res.setHeader('Retry-After', String(error.retryAfterMinutes * 60));
     res.status(error.status).json({

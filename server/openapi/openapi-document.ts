@@ -38,6 +38,7 @@ import { pullQuerySchema, pushRequestSchema } from '../../shared/sync-schemas.js
 import { may, type WorkshopAction } from '../../shared/workshop-policy.js';
 import { SESSION_COOKIE } from '../auth/lucia-session-store.js';
 import { EXPORT_TABLES } from '../export/export-service.js';
+import { PHOTO_BODY_NAMES, PHOTO_PATH_PARAMETERS, PHOTO_ROUTES } from './photo-operations.js';
 
 export type OpenApiDocument = ReturnType<OpenApiGeneratorV3['generateDocument']>;
 
@@ -66,6 +67,10 @@ const TAGS = [
     description: 'Materials with their data sheets, the containers (lots) of them on the shelf, waste and stocktakes.',
   },
   { name: 'Pours', description: 'What was mixed and poured for a build, drawn from the containers on the shelf.' },
+  {
+    name: 'Photos',
+    description: 'Bench photos of a build, a step or a pour: kept without location or other metadata.',
+  },
   { name: 'Costs and export', description: "What builds cost, and a workshop's records to keep or take elsewhere." },
   {
     name: 'Sync',
@@ -78,8 +83,8 @@ type Tag = (typeof TAGS)[number]['name'];
 /** Anyone at all, anyone signed in, or workshop members whose role the policy allows this action. */
 type Access = 'anyone' | 'signed-in' | WorkshopAction;
 
-interface ApiRoute {
-  readonly method: 'get' | 'post' | 'patch' | 'delete';
+export interface ApiRoute {
+  readonly method: 'get' | 'post' | 'put' | 'patch' | 'delete';
   /** OpenAPI form: /api/workshops/{workshopId}/builds. */
   readonly path: string;
   readonly tag: Tag;
@@ -89,6 +94,8 @@ interface ApiRoute {
   readonly accessNote?: string;
   /** The shared schema the route validates its body with. */
   readonly body?: z.ZodType;
+  /** How the body is sent, when it is not JSON. */
+  readonly bodyMedia?: 'multipart/form-data';
   /** The shared schema the route validates its query string with. */
   readonly query?: z.ZodObject;
   readonly success: { readonly status: number; readonly description: string; readonly media?: MediaType };
@@ -97,7 +104,7 @@ interface ApiRoute {
   /** Answers that are neither a success nor an error body. */
   readonly otherAnswers?: Readonly<Record<number, string>>;
 }
-type MediaType = 'application/json' | 'text/csv' | 'text/html';
+type MediaType = 'application/json' | 'text/csv' | 'text/html' | 'image/jpeg';
 
 /** The names request bodies go by in the document. */
 const BODY_NAMES = new Map<z.ZodType, string>([
@@ -124,6 +131,7 @@ const BODY_NAMES = new Map<z.ZodType, string>([
   [stocktakeSchema, 'Stocktake'],
   [newPourSchema, 'NewPour'],
   [pushRequestSchema, 'PushRequest'],
+  ...PHOTO_BODY_NAMES,
 ]);
 
 const recordId = (what: string) => z.uuid().meta({ description: what });
@@ -138,6 +146,7 @@ const PATH_PARAMETERS: Readonly<Record<string, z.ZodType>> = {
   pourId: recordId('The pour.'),
   token: z.string().meta({ description: 'The token from the invitation link.' }),
   table: z.enum(Object.keys(EXPORT_TABLES) as [string, ...string[]]).meta({ description: 'Which table to download.' }),
+  ...PHOTO_PATH_PARAMETERS,
 };
 
 const w = '/api/workshops/{workshopId}';
@@ -145,6 +154,8 @@ const ID_TAKEN = 'A record with this id exists already (code id_taken): ids are 
 const RATE_LIMITED =
   'Too many attempts from this address or for this account (code rate_limited); `retryAfterMinutes` and the Retry-After header say when to try again.';
 const TOKEN_REFUSED = 'The link has expired or has already been used (code token_invalid).';
+const COVER_REFUSED =
+  '`coverPhotoId` is not a photo of this build, or that photo has been deleted (code cover_not_in_build). Upload the photo first.';
 const noSuch = (what: string) => `There is no such ${what} in this workshop (code not_found).`;
 
 const API_ROUTES: readonly ApiRoute[] = [
@@ -451,7 +462,7 @@ const API_ROUTES: readonly ApiRoute[] = [
     access: 'write-builds',
     body: newBuildSchema,
     success: { status: 201, description: 'The build as recorded.' },
-    refusals: { 409: ID_TAKEN },
+    refusals: { 409: ID_TAKEN, 422: COVER_REFUSED },
   },
   {
     method: 'get',
@@ -470,7 +481,7 @@ const API_ROUTES: readonly ApiRoute[] = [
     access: 'write-builds',
     body: buildPatchSchema,
     success: { status: 200, description: 'The build as changed.' },
-    refusals: { 404: noSuch('build') },
+    refusals: { 404: noSuch('build'), 422: COVER_REFUSED },
   },
   {
     method: 'delete',
@@ -478,7 +489,7 @@ const API_ROUTES: readonly ApiRoute[] = [
     tag: 'Builds',
     summary: 'Delete a build',
     access: 'write-builds',
-    success: { status: 204, description: 'Deleted.' },
+    success: { status: 204, description: 'Deleted, with its photos.' },
     refusals: { 404: noSuch('build') },
   },
   {
@@ -676,6 +687,7 @@ const API_ROUTES: readonly ApiRoute[] = [
     success: { status: 204, description: 'Deleted; the stock it used counts as on the shelf again.' },
     refusals: { 404: noSuch('pour') },
   },
+  ...PHOTO_ROUTES,
   {
     method: 'get',
     path: `${w}/costs`,
@@ -826,7 +838,9 @@ function operation(route: ApiRoute, named: Map<z.ZodType, z.ZodType>, apiError: 
     request: {
       ...(params ? { params } : {}),
       ...(route.query ? { query: route.query } : {}),
-      ...(body ? { body: { required: true, content: { 'application/json': { schema: body } } } } : {}),
+      ...(body
+        ? { body: { required: true, content: { [route.bodyMedia ?? 'application/json']: { schema: body } } } }
+        : {}),
     },
     responses,
   };
@@ -872,7 +886,9 @@ function capitalised(text: string): string {
 function refusalsOf(route: ApiRoute, access: OperationAccess): Record<number, string> {
   const refusals: Record<number, string[]> = {};
   const add = (status: number, description: string) => (refusals[status] ??= []).push(description);
-  if (route.body) {
+  if (route.body && route.bodyMedia) {
+    add(400, 'Some values need another look (code invalid): `fields` says what to fix in each.');
+  } else if (route.body) {
     add(
       400,
       'Some values need another look (code invalid): `fields` says what to fix in each. Or the body is not JSON (code malformed_json).',

@@ -75,7 +75,8 @@ function operationHtml(method: string, path: string, operation: Operation, resol
       : [{ name: parameter.name, type: typeOf(resolve(parameter.schema)), description: parameter.description ?? '' }],
   );
   const body = operation.requestBody && !('$ref' in operation.requestBody) ? operation.requestBody : undefined;
-  const bodySchema = body?.content['application/json']?.schema;
+  const [bodyMedia, bodyContent] = Object.entries(body?.content ?? {})[0] ?? [];
+  const bodySchema = bodyContent?.schema;
   const fields = bodySchema ? fieldRows(resolve(bodySchema), '', resolve) : [];
   const responses = Object.entries(operation.responses ?? {}) as [string, { description?: string }][];
   return `
@@ -96,7 +97,9 @@ function operationHtml(method: string, path: string, operation: Operation, resol
           fields.length === 0
             ? ''
             : table(
-                'Request body (JSON)',
+                bodyMedia === 'multipart/form-data'
+                  ? 'Request body (a form, multipart/form-data)'
+                  : 'Request body (JSON)',
                 ['Field', 'Type', 'Required'],
                 fields.map((field) => [
                   `<code>${escape(field.name)}</code>`,

@@ -2,6 +2,7 @@ import type { z } from 'zod';
 import type { mutationSchema } from '../../shared/sync-schemas.js';
 import { createBuild, createStep, deleteBuild, deleteStep, updateBuild, updateStep } from '../builds/build-service.js';
 import type { ServerContext } from '../context.js';
+import { deletePhoto, updatePhoto } from '../photos/photo-service.js';
 import { createPour, deletePour } from '../pours/pour-service.js';
 import {
   createContainer,
@@ -57,5 +58,9 @@ export async function applyMutation(
       return void (await createPour(...args, m.data));
     case 'pour.delete':
       return deletePour(...args, m.recordId);
+    case 'photo.patch':
+      return void (await updatePhoto(...args, m.recordId, m.data));
+    case 'photo.delete':
+      return deletePhoto(...args, m.recordId);
   }
 }

@@ -8,9 +8,11 @@ import {
   ledgerEntries,
   materials,
   memberships,
+  photos,
   pours,
   workshops,
 } from '../db/schema/index.js';
+import { photoRecord, type PhotoRow } from '../photos/photo-records.js';
 import type { SyncedTable } from '../records/synced-records.js';
 
 const TABLES: readonly [SyncedEntity, SyncedTable][] = [
@@ -20,6 +22,7 @@ const TABLES: readonly [SyncedEntity, SyncedTable][] = [
   ['container', containers],
   ['ledgerEntry', ledgerEntries],
   ['pour', pours],
+  ['photo', photos],
 ];
 
 /**
@@ -75,7 +78,10 @@ export async function pull(
           changeNumber: number;
           deletedAt: Date | null;
         })[]) {
-          const record = { ...row, deletedAt: row.deletedAt?.toISOString() ?? null };
+          const record =
+            entity === 'photo'
+              ? { ...photoRecord(row as unknown as PhotoRow) }
+              : { ...row, deletedAt: row.deletedAt?.toISOString() ?? null };
           changes.push({ entity, changeNumber: row.changeNumber, record });
         }
       }

@@ -16,6 +16,7 @@ import { linkIn } from '../../server/mail/mail-sink.js';
 import { v7 } from 'uuid';
 import { pourBody, TEST_DATA_SHEET } from '../support/shelf.js';
 import { makeRecords } from '../support/records.js';
+import { benchJpeg } from '../support/photos.js';
 
 type Caller = 'anonymous' | Role | 'outsider';
 const CALLERS: readonly Caller[] = ['anonymous', 'viewer', 'builder', 'owner', 'outsider'];
@@ -30,6 +31,7 @@ interface Fixture {
   materialId: string;
   containerId: string;
   pourId: string;
+  photoId: string;
   /** An invitation sent to the caller (or to nobody in particular for an anonymous caller). */
   invitationTokenForCaller: string;
   caller: TestAccount | null;
@@ -40,6 +42,8 @@ interface Row {
   route: string;
   path: (f: Fixture) => string;
   body?: (f: Fixture) => object;
+  /** A multipart form instead of a JSON body: text fields and the photo file. */
+  form?: (f: Fixture) => { fields: Record<string, string>; photo: Buffer };
   expected: Expected;
 }
 
@@ -73,6 +77,8 @@ const writers = (status: number): Expected => ({
   outsider: 404,
 });
 const bogusToken = `${'0'.repeat(32)}_${'A'.repeat(43)}`;
+/** Made once, before the rows run. */
+let matrixPhoto: Buffer;
 const w = (f: Fixture) => `/api/workshops/${f.workshopId}`;
 
 const MATRIX: readonly Row[] = [
@@ -321,6 +327,33 @@ const MATRIX: readonly Row[] = [
     path: (f) => `${w(f)}/pours/${f.pourId}`,
     expected: writers(204),
   },
+  {
+    route: 'PUT /api/workshops/:workshopId/photos/:photoId',
+    path: (f) => `${w(f)}/photos/${v7()}`,
+    form: (f) => ({ fields: { buildId: f.buildId, stepId: f.stepId, caption: 'Riverbed' }, photo: matrixPhoto }),
+    expected: writers(201),
+  },
+  {
+    route: 'GET /api/workshops/:workshopId/photos/:photoId/:size',
+    path: (f) => `${w(f)}/photos/${f.photoId}/thumb`,
+    expected: membersOnly(200),
+  },
+  {
+    route: 'GET /api/workshops/:workshopId/builds/:buildId/photos',
+    path: (f) => `${w(f)}/builds/${f.buildId}/photos`,
+    expected: membersOnly(200),
+  },
+  {
+    route: 'PATCH /api/workshops/:workshopId/photos/:photoId',
+    path: (f) => `${w(f)}/photos/${f.photoId}`,
+    body: () => ({ caption: 'After the second layer' }),
+    expected: writers(200),
+  },
+  {
+    route: 'DELETE /api/workshops/:workshopId/photos/:photoId',
+    path: (f) => `${w(f)}/photos/${f.photoId}`,
+    expected: writers(204),
+  },
   { route: 'GET /api/workshops/:workshopId/costs', path: (f) => `${w(f)}/costs`, expected: membersOnly(200) },
   { route: 'GET /api/workshops/:workshopId/costs.csv', path: (f) => `${w(f)}/costs.csv`, expected: membersOnly(200) },
   { route: 'GET /api/workshops/:workshopId/export.json', path: (f) => `${w(f)}/export.json`, expected: ownerOnly(200) },
@@ -362,6 +395,7 @@ describe('the authorisation matrix', () => {
 
   beforeAll(async () => {
     server = await testServer();
+    matrixPhoto = await benchJpeg({ width: 64, height: 48 });
   });
 
   async function fixture(caller: Caller, needsInvitation: boolean): Promise<Fixture> {
@@ -413,6 +447,11 @@ describe('the authorisation matrix', () => {
         const [method, path] = [row.route.split(' ')[0]!.toLowerCase() as 'get', row.path(f)];
         let call = request(server.app)[method](path);
         if (f.caller) call = call.set('Cookie', f.caller.cookie);
+        if (row.form) {
+          const { fields, photo } = row.form(f);
+          for (const [name, value] of Object.entries(fields)) call = call.field(name, value);
+          call = call.attach('photo', photo, { filename: 'bench.jpg', contentType: 'image/jpeg' });
+        }
         const response = await (row.body ? call.send(row.body(f)) : call);
         actual[caller] = response.status;
       }

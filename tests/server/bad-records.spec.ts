@@ -15,7 +15,8 @@ async function fingerprint(server: TestServer, workshopId: string): Promise<stri
            (SELECT count(*) FROM materials WHERE workshop_id = ${workshopId}) AS materials,
            (SELECT count(*) FROM containers WHERE workshop_id = ${workshopId}) AS containers,
            (SELECT count(*) FROM ledger_entries WHERE workshop_id = ${workshopId}) AS entries,
-           (SELECT count(*) FROM pours WHERE workshop_id = ${workshopId}) AS pours`);
+           (SELECT count(*) FROM pours WHERE workshop_id = ${workshopId}) AS pours,
+           (SELECT string_agg(caption, '|') FROM photos WHERE workshop_id = ${workshopId}) AS captions`);
   return JSON.stringify(result.rows[0]);
 }
 
@@ -117,6 +118,12 @@ describe('bad input on every record write', () => {
       field: 'shape.diameterMm',
       message: 'Diameter must be more than 0 mm',
     },
+    {
+      route: 'PATCH /photos/:photo',
+      body: () => ({ caption: 'Gloss '.repeat(100) }),
+      field: 'caption',
+      message: 'Caption must be at most 500 characters',
+    },
   ];
 
   for (const { route, body, field, message } of cases) {
@@ -126,7 +133,8 @@ describe('bad input on every record write', () => {
         .replace(':build', records.buildId)
         .replace(':step', records.stepId)
         .replace(':material', records.materialId)
-        .replace(':container', records.containerId);
+        .replace(':container', records.containerId)
+        .replace(':photo', records.photoId);
       const before = await fingerprint(server, workshopId);
 
       const url = `/api/workshops/${workshopId}${path}`;

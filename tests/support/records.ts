@@ -1,14 +1,17 @@
 import { v7 } from 'uuid';
 import { createBuild, createStep } from '../../server/builds/build-service.js';
 import type { ServerContext } from '../../server/context.js';
+import { uploadPhoto } from '../../server/photos/photo-service.js';
 import { createPour } from '../../server/pours/pour-service.js';
 import { createContainer, createMaterial } from '../../server/shelf/shelf-service.js';
 import type { TestAccount } from './accounts.js';
+import { benchJpeg } from './photos.js';
 import { TEST_DATA_SHEET } from './shelf.js';
 
-/** One of each record in a workshop, made through the services: a build with a step, a material, its two parts, a pour. */
+/** One of each record in a workshop, made through the services: a build with a step, a material, its two parts, a pour, a photo. */
 export async function makeRecords(ctx: ServerContext, owner: TestAccount, workshopId: string) {
   const [buildId, stepId, materialId, containerId, partBId, pourId] = [v7(), v7(), v7(), v7(), v7(), v7()];
+  const photoId = v7();
   await createBuild(ctx, owner.id, workshopId, {
     id: buildId,
     name: 'Mill race',
@@ -60,5 +63,7 @@ export async function makeRecords(ctx: ServerContext, owner: TestAccount, worksh
     whenShort: 'refuse',
     note: '',
   });
-  return { buildId, stepId, materialId, containerId, pourId };
+  const photo = await benchJpeg({ width: 64, height: 48 });
+  await uploadPhoto(ctx, owner.id, workshopId, photoId, { buildId, stepId, pourId: null, caption: 'Dry fit' }, photo);
+  return { buildId, stepId, materialId, containerId, pourId, photoId };
 }
