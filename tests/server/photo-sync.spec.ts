@@ -189,6 +189,26 @@ describe('bench photos once uploaded', () => {
       expect(cleared.body.coverPhotoId).toBeNull();
     });
 
+    it('should set and refuse covers by sync push just as by the build route', async () => {
+      const photo = await addPhoto();
+      const elsewhere = await addPhoto(await addBuild(client));
+      const cover = (coverPhotoId: string | null) => ({
+        type: 'build.patch',
+        mutationId: v7(),
+        recordId: buildId,
+        data: { coverPhotoId },
+      });
+
+      const answer = await push(owner, [cover(photo.id), cover(elsewhere.id)]).expect(200);
+
+      expect(answer.body.results.map((result: { status: string }) => result.status)).toEqual(['applied', 'rejected']);
+      expect(answer.body.results[1].reason.code).toBe('cover_not_in_build');
+      const [build] = await pulled('build', buildId);
+      expect(build!.record['coverPhotoId']).toBe(photo.id);
+      await push(owner, [cover(null)]).expect(200);
+      expect((await pulled('build', buildId))[0]!.record['coverPhotoId']).toBeNull();
+    });
+
     it("should refuse another build's photo, an unknown one or a deleted one as cover with 422", async () => {
       const elsewhere = await addPhoto(await addBuild(client));
       const deleted = await addPhoto();

@@ -269,6 +269,30 @@ describe('uploading bench photos', () => {
       await expectNothingStored(photoId);
     });
 
+    it('should refuse a form cut off half-way with 400 bad_upload, keeping nothing', async () => {
+      const photoId = v7();
+
+      const refused = await request(server.app)
+        .put(`/api/workshops/${workshopId}/photos/${photoId}`)
+        .set('Cookie', owner.cookie)
+        .set('Content-Type', 'multipart/form-data; boundary=bench')
+        .send(`--bench\r\nContent-Disposition: form-data; name="buildId"\r\n\r\n${buildId}\r\n--bench\r\nContent-Disp`)
+        .expect(400);
+
+      expect(refused.body.error.code).toBe('bad_upload');
+      await expectNothingStored(photoId);
+    });
+
+    it('should refuse two files with 400 bad_upload, keeping nothing', async () => {
+      const photoId = v7();
+      const bytes = await benchJpeg();
+
+      const refused = await upload(photoId, bytes).attach('photo', bytes, 'second.jpg').expect(400);
+
+      expect(refused.body.error.message).toBe('Send one photo, in the form field "photo".');
+      await expectNothingStored(photoId);
+    });
+
     it('should refuse a body that is not a form with 400 photo_missing', async () => {
       const photoId = v7();
 
