@@ -4,6 +4,7 @@ import { buildPatchSchema, may, stepPatchSchema, type NewBuild, type NewStep } f
 import { interval, map, startWith } from 'rxjs';
 import type { z } from 'zod';
 import { AccountSession } from '../account/account-session';
+import { BuildPhotos, type PhotoTarget, type PickedPhoto } from '../photos/build-photos';
 import { LocalRecords } from '../sync/local-records';
 import { OfflineStore } from '../sync/offline-store';
 import type { LocalBuild, LocalContainer, LocalLedgerEntry, LocalPour, LocalStep } from '../sync/synced-records';
@@ -48,6 +49,7 @@ export class BuildLog {
   private readonly session = inject(AccountSession);
   private readonly records = inject(LocalRecords);
   private readonly store = inject(OfflineStore);
+  private readonly photos = inject(BuildPhotos);
   private readonly injector = inject(Injector);
 
   readonly signedIn = this.session.signedIn;
@@ -129,6 +131,11 @@ export class BuildLog {
   }
   async deleteStep(id: string): Promise<void> {
     return this.store.deleteStep(this.requireWorkshop(), id);
+  }
+
+  /** Photos for a build, step or pour, stored in one transaction with `alongside` (the step they come with). */
+  async addPhotos(target: PhotoTarget, photos: readonly PickedPhoto[], alongside?: () => Promise<unknown>) {
+    return this.photos.add(this.requireWorkshop(), target, photos, alongside);
   }
 
   /**

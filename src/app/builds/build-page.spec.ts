@@ -9,6 +9,8 @@ import { MatSelectHarness } from '@angular/material/select/testing';
 import { DEFERENCE_NOTE } from '@benchtide/shared';
 import { format } from 'date-fns';
 import { v7 } from 'uuid';
+import { BuildPhotos } from '../photos/build-photos';
+import { chooseFiles, picked, pictureFile } from '../photos/photos-testing';
 import { BenchDb } from '../sync/bench-db';
 import { OfflineStore } from '../sync/offline-store';
 import { dropDatabase, until } from '../sync/sync-testing';
@@ -284,6 +286,42 @@ describe('BuildPage', () => {
       await filterBy('Pours');
 
       expect(titles()).toEqual(['Clear casting resin']);
+    });
+  });
+
+  describe('photos', () => {
+    it("should show each step's and pour's photos in the log, add photos to a pour, and gather all in the gallery", async () => {
+      await arrange('builder');
+      const jetty = (await db.steps.toArray()).find((step) => step.title === 'Added the jetty')!;
+      const photo = picked(await pictureFile('jetty.jpg'));
+      await TestBed.inject(BuildPhotos).add(WORKSHOP_ID, { buildId, stepId: jetty.id }, [photo]);
+      await render();
+      await settle('the step photo', () => entries()[0]?.querySelector('bt-photo-strip [data-photo]'));
+
+      const pour = entries()[1]!;
+      expect(pour.dataset['entry']).toBe('pour');
+      expect(pour.querySelector('[data-action="take-photo"]')?.getAttribute('aria-label')).toBe(
+        `Take a photo of the pour of ${format(Date.parse(pourStart), WHEN)}`,
+      );
+      chooseFiles(pour.querySelector<HTMLInputElement>('[data-field="library"]')!, [await pictureFile('pour.jpg')]);
+
+      await settle('the pour photo', () => entries()[1]?.querySelector('bt-photo-strip [data-photo]'));
+      const [stored] = await db.photos
+        .where('pourId')
+        .anyOf((await db.pours.toArray()).map((p) => p.id))
+        .toArray();
+      expect(stored?.buildId).toBe(buildId);
+      expect(text(entries()[0]!.querySelector('bt-photo-strip .state'))).toBe('Waiting to be sent');
+      await settle('both in the gallery', () => query('#photos')?.querySelectorAll('[data-photo]').length === 2);
+    });
+
+    it('should give a viewer no way to add photos to a pour', async () => {
+      await arrange('viewer');
+      await render();
+      await settle('the whole log', () => entries().length === 4);
+
+      expect(query('bt-photo-picker')).toBeNull();
+      expect(text('[data-state="no-photos"]')).toBe('No photos yet.');
     });
   });
 

@@ -21,6 +21,9 @@ import { format } from 'date-fns';
 import type { ApiProblem } from '../core/api-error';
 import { DevicePreferences } from '../core/device-preferences';
 import { ProblemNote } from '../core/problem-note';
+import { BuildPhotos, type BuildPhoto } from '../photos/build-photos';
+import { PhotoGallery } from '../photos/photo-gallery';
+import { PhotoStrip } from '../photos/photo-strip';
 import type { LocalStep } from '../sync/synced-records';
 import { BuildLog } from './build-log';
 import { BuildSheet, type SheetHeader, type SheetStep } from './build-sheet';
@@ -54,7 +57,7 @@ const WHEN = 'EEE d MMM yyyy, HH:mm';
 
 /**
  * One build and its log: the scale, the base and the real footprint it shows, then every step and pour,
- * newest first. Builders log steps here; viewers read. Prints as a build sheet with every pour's recipe.
+ * newest first, each with its photos, then the build's photos. Builders log steps and add photos here; viewers read. Prints as a build sheet with every pour's recipe.
  */
 @Component({
   selector: 'bt-build-page',
@@ -65,6 +68,8 @@ const WHEN = 'EEE d MMM yyyy, HH:mm';
     MatProgressBarModule,
     RouterLink,
     BuildSheet,
+    PhotoGallery,
+    PhotoStrip,
     ProblemNote,
     StepForm,
     WorkshopNeeded,
@@ -79,6 +84,7 @@ export class BuildPage {
   private readonly preferences = inject(DevicePreferences);
   private readonly locale = inject(LOCALE_ID);
   private readonly injector = inject(Injector);
+  private readonly buildPhotos = inject(BuildPhotos);
 
   /** From the route `builds/:buildId`. */
   readonly buildId = input.required<string>();
@@ -97,6 +103,16 @@ export class BuildPage {
 
   private readonly followed = this.log.follow(this.buildId);
   protected readonly build = this.followed.build;
+  protected readonly photos = this.buildPhotos.ofBuild(this.buildId);
+  /** The photos of each step and pour, by its id. */
+  private readonly photosByEntry = computed(() => {
+    const byEntry = new Map<string, BuildPhoto[]>();
+    for (const entry of this.photos()) {
+      const key = entry.photo.stepId ?? entry.photo.pourId;
+      if (key !== null) byEntry.set(key, [...(byEntry.get(key) ?? []), entry]);
+    }
+    return byEntry;
+  });
   private readonly units = computed<DisplayUnits>(() => {
     const { unitSystem, temperatureUnit } = this.preferences.values();
     return { ...displayUnitsFor(unitSystem), temperature: temperatureUnit };
@@ -159,6 +175,10 @@ export class BuildPage {
       this.followed.pours().filter((pour) => pour.pending).length +
       this.followed.steps().filter((step) => step.pending).length,
   );
+
+  protected photosOf(entryId: string): readonly BuildPhoto[] {
+    return this.photosByEntry().get(entryId) ?? [];
+  }
 
   protected when(at: string): string {
     const ms = Date.parse(at);

@@ -21,6 +21,8 @@ import { v7 } from 'uuid';
 import type { ApiProblem } from '../core/api-error';
 import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';
 import { ProblemNote } from '../core/problem-note';
+import type { PickedPhoto } from '../photos/build-photos';
+import { PhotosToAdd } from '../photos/photos-to-add';
 import type { LocalStep } from '../sync/synced-records';
 import { BuildLog } from './build-log';
 import { STEP_KIND_WORDS, type StepKind } from './build-words';
@@ -35,10 +37,21 @@ const FIELD_OF: Readonly<Record<string, StepField>> = {
   notes: 'notes',
 };
 
-/** A step of the build log, new or changed: what kind, what was done, when, and notes. Saved on this device at once. */
+/**
+ * A step of the build log, new or changed: what kind, what was done, when, notes and photos. Saved on this
+ * device at once. A new step whose time was not set by hand takes the time its earliest photo was taken.
+ */
 @Component({
   selector: 'bt-step-form',
-  imports: [ReactiveFormsModule, MatButtonModule, MatFormFieldModule, MatInputModule, MatSelectModule, ProblemNote],
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatSelectModule,
+    PhotosToAdd,
+    ProblemNote,
+  ],
   providers: [ROOMY_FORM_FIELDS],
   templateUrl: './step-form.html',
   styles: `
@@ -82,6 +95,9 @@ export class StepForm implements OnInit {
   protected readonly attempted = signal(false);
   protected readonly saving = signal(false);
   protected readonly problem = signal<ApiProblem | null>(null);
+  protected readonly photos = signal<readonly PickedPhoto[]>([]);
+  /** The taken time the step's time came from, while it still does. */
+  protected readonly timeFromPhoto = signal<string | null>(null);
 
   private readonly newId = v7();
   private readonly value = toSignal(
@@ -119,6 +135,31 @@ export class StepForm implements OnInit {
     });
   }
 
+  protected photosChosen(photos: readonly PickedPhoto[]): void {
+    this.photos.set(photos);
+    const when = this.form.controls.when;
+    if (this.step() || when.dirty) return;
+    const earliest = photos
+      .map((photo) => photo.takenAt)
+      .filter((at) => at !== null)
+      .sort()[0];
+    if (earliest !== undefined) {
+      when.setValue(format(earliest, LOCAL_MINUTE));
+      this.timeFromPhoto.set(earliest);
+    } else if (this.timeFromPhoto() !== null) {
+      when.setValue(format(new Date(), LOCAL_MINUTE));
+      this.timeFromPhoto.set(null);
+    }
+  }
+
+  protected whenHint(): string {
+    const fromPhoto = this.timeFromPhoto();
+    if (fromPhoto !== null && !this.form.controls.when.dirty) {
+      return `From the earliest photo, taken ${format(fromPhoto, 'd MMM yyyy, HH:mm')}`;
+    }
+    return 'Now, unless you change it';
+  }
+
   protected error(field: StepField): string | null {
     const message = this.errors().get(field) ?? null;
     return this.attempted() || this.form.controls[field].dirty ? message : null;
@@ -131,18 +172,22 @@ export class StepForm implements OnInit {
     this.saving.set(true);
     try {
       const step = this.step();
-      if (step) {
-        await this.log.patchStep(step.id, stepPatchSchema.parse(this.fields()));
-        this.saved.emit(step.id);
-      } else {
-        const data = newStepSchema.parse({ id: this.newId, buildId: this.buildId(), ...this.fields() });
-        this.saved.emit(await this.log.createStep(this.buildId(), data));
-      }
+      const buildId = this.buildId();
+      const save = step
+        ? () => this.log.patchStep(step.id, stepPatchSchema.parse(this.fields()))
+        : () => this.log.createStep(buildId, newStepSchema.parse({ id: this.newId, buildId, ...this.fields() }));
+      const photos = this.photos();
+      const stepId = step?.id ?? this.newId;
+      // The step and its photos are stored together, or neither is.
+      await (photos.length > 0 ? this.log.addPhotos({ buildId, stepId }, photos, save) : save());
+      this.photos.set([]);
+      this.saved.emit(stepId);
     } catch (error) {
       const detail = error instanceof Error ? ` (${error.message})` : '';
+      const kept = this.photos().length > 0 ? 'What you typed and the photos you chose are' : 'What you typed is';
       this.problem.set({
         code: 'device-storage',
-        message: `This device could not save the step${detail}. What you typed is still here: try again.`,
+        message: `This device could not save the step${detail}. ${kept} still here: try again.`,
         fields: {},
         retryAfterMinutes: null,
       });

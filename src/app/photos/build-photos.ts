@@ -52,25 +52,20 @@ export class BuildPhotos {
 
   /** A build's photos, newest first, each with its upload while it has one. */
   ofBuild(buildId: Signal<string | null>, injector?: Injector): Signal<BuildPhoto[]> {
-    const photos = liveSignalOf(
+    // One query over both tables, so a photo never shows before its upload (it would ask the server for it).
+    return liveSignalOf(
       buildId,
-      (id) => (id === null ? [] : this.db.photos.where('buildId').equals(id).toArray()),
-      [] as LocalPhoto[],
+      async (id): Promise<BuildPhoto[]> => {
+        if (id === null) return [];
+        const photos = await this.db.photos.where('buildId').equals(id).toArray();
+        const live = photos.filter((photo) => photo.deletedAt === null);
+        const uploads = await this.db.photoUploads.bulkGet(live.map((photo) => photo.id));
+        return live
+          .map((photo, index) => ({ photo, upload: uploads[index] ?? null }))
+          .sort((a, b) => shownAt(b.photo).localeCompare(shownAt(a.photo)));
+      },
+      [],
       injector,
-    );
-    // Read apart from the photos, so the progress of an upload does not read the whole gallery again.
-    const uploads = liveSignalOf(
-      buildId,
-      async (id) =>
-        new Map((await this.db.photoUploads.toArray()).filter((u) => u.fields.buildId === id).map((u) => [u.id, u])),
-      new Map<string, PhotoUploadRow>(),
-      injector,
-    );
-    return computed(() =>
-      photos()
-        .filter((photo) => photo.deletedAt === null)
-        .map((photo) => ({ photo, upload: uploads().get(photo.id) ?? null }))
-        .sort((a, b) => shownAt(b.photo).localeCompare(shownAt(a.photo))),
     );
   }
 

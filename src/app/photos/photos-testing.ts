@@ -1,5 +1,6 @@
 import type { PhotoRecord } from '@benchtide/shared';
 import { v7 } from 'uuid';
+import { nextTask } from '../sync/sync-testing';
 import type { PickedPhoto } from './build-photos';
 
 /**
@@ -68,6 +69,15 @@ export function serverPhoto(
     changeNumber,
     ...more,
   };
+}
+
+/** Waits until an answer from the device store holds; fails after 4.5 s, inside the 5 s a spec may take. */
+export async function eventually(check: () => Promise<boolean>, what: string): Promise<void> {
+  const giveUpAt = performance.now() + 4_500;
+  while (!(await check())) {
+    if (performance.now() > giveUpAt) throw new Error(`Gave up waiting for ${what}`);
+    await nextTask();
+  }
 }
 
 /** Puts a file into a hidden file input as the browser does after a choice, and says it changed. */
