@@ -2,6 +2,9 @@ import type { HarnessLoader } from '@angular/cdk/testing';
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
+import { photoUrl } from '@benchtide/shared';
+import { BuildPhotos } from '../photos/build-photos';
+import { picked, pictureFile } from '../photos/photos-testing';
 import { BenchDb } from '../sync/bench-db';
 import { OfflineStore } from '../sync/offline-store';
 import { dropDatabase, until } from '../sync/sync-testing';
@@ -157,6 +160,29 @@ describe('BuildList', () => {
       expect(text(query('[data-state="empty"] h2'))).toBe('No builds yet — start one');
       const start = await loader.getHarness(MatButtonHarness.with({ text: /New build/ }));
       expect(await (await start.host()).getAttribute('href')).toBe('/builds/new');
+    });
+
+    it("should show a build's cover photo, from the server's thumbnail, and none on a build without one", async () => {
+      const harbour = await store.createBuild(WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
+      await store.createBuild(WORKSHOP_ID, { name: 'Canal lock', scaleRatio: 76.2, status: 'building' });
+      const photo = picked(await pictureFile('cover.jpg'), '2025-03-01T09:30:00.000Z');
+      await TestBed.inject(BuildPhotos).add(WORKSHOP_ID, { buildId: harbour }, [photo]);
+      await db.photoUploads.clear();
+      await db.photos.update(photo.id, { caption: 'Low tide at the jetty', changeNumber: 3, pending: undefined });
+      await store.patchBuild(WORKSHOP_ID, harbour, { coverPhotoId: photo.id });
+      await render();
+
+      const card = (name: string) => cards().find((element) => text(element.querySelector('.name')) === name);
+      await settle(
+        'the cover',
+        () =>
+          card('Harbour')?.querySelector('[data-field="cover"] img')?.getAttribute('alt') === 'Low tide at the jetty',
+      );
+      const cover = card('Harbour')!.querySelector<HTMLImageElement>('[data-field="cover"] img')!;
+      expect(cover.getAttribute('src')).toBe(photoUrl(WORKSHOP_ID, photo.id, 'thumb'));
+      expect(cover.getAttribute('loading')).toBe('lazy');
+      expect(cover.alt).toBe('Low tide at the jetty');
+      expect(card('Canal lock')?.querySelector('[data-field="cover"]')).toBeNull();
     });
 
     it('should mark a build saved here and not yet synced', async () => {
