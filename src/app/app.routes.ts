@@ -34,6 +34,11 @@ export const routes: Routes = [
     loadComponent: () => import('./builds/build-editor').then((m) => m.BuildEditor),
   },
   {
+    path: 'add-photo',
+    title: 'Add a photo · Benchtide',
+    loadComponent: () => import('./photos/photo-quick-add').then((m) => m.PhotoQuickAdd),
+  },
+  {
     path: 'shelf',
     title: 'Shelf · Benchtide',
     loadComponent: () => import('./shelf/shelf-page').then((m) => m.ShelfPage),

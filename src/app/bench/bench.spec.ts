@@ -226,7 +226,11 @@ describe('Bench', () => {
       await render();
       await settle('the board', () => query('bt-bench-board .curing'));
 
-      expect(links().map((link) => link.href)).toEqual(['/builds', '/log-pour']);
+      expect(links()).toEqual([
+        { text: 'Log a step', href: '/builds' },
+        { text: 'Add a photo', href: '/add-photo' },
+        { text: 'Log a pour', href: '/log-pour' },
+      ]);
       expect(textOf(query('.log-pour'))).toBe('Log a pour');
       expect(textOf(query('.caution mat-card-title'))).toBe('Before any pour');
     });
