@@ -11,6 +11,10 @@ import { v7 } from 'uuid';
 import { BenchIcons } from '../core/bench-icons';
 import { InstallOffer } from '../core/install-offer';
 import { fixesFor } from '../sync/change-fixes';
+import { BENCH_DB_NAME, BenchDb } from '../sync/bench-db';
+import { dropDatabase, until } from '../sync/sync-testing';
+import { BuildPhotos } from '../photos/build-photos';
+import { picked, pictureFile } from '../photos/photos-testing';
 import { StorageHealth } from '../sync/storage-health';
 import { SyncEngine } from '../sync/sync-engine';
 import type { OutboxRow } from '../sync/synced-records';
@@ -120,13 +124,18 @@ describe('DevicePage', () => {
         provideHttpClient(),
         provideHttpClientTesting(),
         provideAppInitializer(() => inject(BenchIcons).register()),
+        // The list of photos not sent yet reads the device store itself.
+        { provide: BENCH_DB_NAME, useValue: `device-page-spec-${v7()}` },
         { provide: SyncEngine, useValue: engine },
         { provide: StorageHealth, useValue: storage },
         { provide: InstallOffer, useValue: offer },
       ],
     });
   });
-  afterEach(() => localStorage.clear());
+  afterEach(async () => {
+    localStorage.clear();
+    await dropDatabase(TestBed.inject(BenchDb));
+  });
 
   async function render(): Promise<void> {
     fixture = TestBed.createComponent(DevicePage);
@@ -411,6 +420,28 @@ describe('DevicePage', () => {
 
       expect(textOf(panel('On the home screen'))).toContain("use your browser's menu");
       expect(await loader.getAllHarnesses(MatButtonHarness.with({ text: /Install/ }))).toEqual([]);
+    });
+  });
+
+  describe('photos not sent yet', () => {
+    it('should list them beside the changes, asking for attention when one was refused', async () => {
+      signIn();
+      const photo = picked(await pictureFile('jetty.jpg'));
+      await TestBed.inject(BuildPhotos).add(v7(), { buildId: v7() }, [photo]);
+      await TestBed.inject(BenchDb).photoUploads.update(photo.id, {
+        state: 'refused',
+        lastError: { code: 'photo_too_large', message: 'This photo is larger than 25 MB.', status: 413 },
+      });
+      await render();
+
+      await until(() => {
+        fixture.detectChanges();
+        return panel('Photos not sent yet (1)')?.classList.contains('attention');
+      }, 'the photos panel, refused');
+      const photos = panel('Photos not sent yet (1)')!;
+      expect(photos.classList).toContain('attention');
+      expect(textOf(photos.querySelector('.what'))).toBe('jetty.jpg for a build not on this device');
+      expect(textOf(photos.querySelector('[data-field="upload-reason"]'))).toBe('This photo is larger than 25 MB.');
     });
   });
 });

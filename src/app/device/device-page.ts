@@ -6,6 +6,7 @@ import { RouterLink } from '@angular/router';
 import { format, formatDistanceToNow } from 'date-fns';
 import { AccountSession } from '../account/account-session';
 import { InstallOffer } from '../core/install-offer';
+import { PhotoUploadList } from '../photos/photo-upload-list';
 import { StorageHealth } from '../sync/storage-health';
 import { fixesFor, type ChangeFix } from '../sync/change-fixes';
 import { SyncEngine } from '../sync/sync-engine';
@@ -19,13 +20,14 @@ const LISTED = 30;
 
 /**
  * What this device holds that the server has not yet got, and how safe it is: the changes waiting to be
- * sent, the ones the server refused (each with its reason and a way to fix or discard it), the space used,
+ * sent, the ones the server refused (each with its reason and a way to fix or discard it), the photos not
+ * sent yet, the space used,
  * whether the browser promised to keep it, and the offer to install the app.
  */
 @Component({
   selector: 'bt-device-page',
   providers: [ROOMY_FORM_FIELDS],
-  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink, DeviceSettings],
+  imports: [MatButtonModule, MatIconModule, MatProgressBarModule, RouterLink, DeviceSettings, PhotoUploadList],
   templateUrl: './device-page.html',
   styleUrl: './device-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
