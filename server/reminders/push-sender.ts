@@ -27,7 +27,6 @@ export function notificationPayload(message: ReminderMessage, tag: string): stri
       title: message.title,
       body: message.body,
       icon: '/icons/icon-192.png',
-      badge: '/icons/icon-96.png',
       tag,
       data: {
         url: message.url,

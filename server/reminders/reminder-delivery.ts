@@ -14,6 +14,8 @@ import type { VapidKeys } from './vapid-keys.js';
 /** Minutes to wait before each retry of a delivery that failed; after the last, it is given up. */
 const RETRY_AFTER_MIN = [1, 5, 15, 60];
 const BATCH = 20;
+/** Reminders made out per transaction; the caller goes on while batches come back full. */
+export const FAN_OUT_BATCH = 200;
 
 export interface Sending {
   vapid: VapidKeys;
@@ -30,8 +32,9 @@ export async function fanOutDueReminders(ctx: ServerContext, now: Date): Promise
       .innerJoin(pours, eq(pours.id, reminders.pourId))
       .where(and(lte(reminders.dueAt, now), isNull(reminders.fannedOutAt), isNull(reminders.cancelledAt)))
       .orderBy(asc(reminders.dueAt))
-      .limit(200)
+      .limit(FAN_OUT_BATCH)
       .for('update', { of: reminders, skipLocked: true });
+    const recipients = new Map<string, Recipient[]>();
     for (const { reminder, buildId, pourDeletedAt } of due) {
       if (pourDeletedAt === null) {
         const message = {
@@ -39,7 +42,10 @@ export async function fanOutDueReminders(ctx: ServerContext, now: Date): Promise
           body: reminder.body,
           url: `/builds/${buildId}?pour=${reminder.pourId}`,
         };
-        const people = await recipientsOf(tx, reminder.workshopId, reminder.kind);
+        const audience = `${reminder.workshopId}:${reminder.kind}`;
+        if (!recipients.has(audience))
+          recipients.set(audience, await recipientsOf(tx, reminder.workshopId, reminder.kind));
+        const people = recipients.get(audience)!;
         // The same subject the open app uses for its own notification, so one replaces the other.
         const subject = pourReminderTag(reminder.pourId, reminder.key);
         await addDeliveries(tx, subject, people, message, reminder.dueAt, now, reminder.id);

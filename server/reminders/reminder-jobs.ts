@@ -1,6 +1,6 @@
 import PgBoss from 'pg-boss';
 import type { ServerContext } from '../context.js';
-import { fanOutDueReminders, sendDueDeliveries, type Sending } from './reminder-delivery.js';
+import { FAN_OUT_BATCH, fanOutDueReminders, sendDueDeliveries, type Sending } from './reminder-delivery.js';
 import { queueShelfDigests } from './shelf-digest.js';
 import { vapidKeys } from './vapid-keys.js';
 
@@ -10,7 +10,7 @@ export const DIGEST_QUEUE = 'shelf-digest';
 /** Makes out and sends everything due by the context's clock: what each tick of the queue does. */
 export async function runDueReminders(ctx: ServerContext, sending: Sending): Promise<number> {
   const now = ctx.clock.now();
-  await fanOutDueReminders(ctx, now);
+  while ((await fanOutDueReminders(ctx, now)) === FAN_OUT_BATCH);
   return sendDueDeliveries(ctx, now, sending);
 }
 

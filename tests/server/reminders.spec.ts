@@ -20,6 +20,8 @@ import { openDatabase } from '../../server/db/database.js';
 // 4320 min at 20 °C, at most 10 mm a layer. A 15 mm pour at 20 °C is two layers of 7.5 mm, so
 // its reminders are layer 2 at +240 min, demould at +480 + … (counted from the last layer).
 describe('cure reminders', () => {
+  // Each tick sweeps every reminder due in the run's shared database, other suites' pours included.
+  const SWEEP_MS = 30_000;
   let server: TestServer;
   let push: FakePushService;
   let sending: Sending;
@@ -102,7 +104,7 @@ describe('cure reminders', () => {
       demould: (240 + 1440) * minutes,
       'full-cure': (240 + 4320) * minutes,
     });
-  });
+  }, SWEEP_MS);
 
   it('should e-mail the owner and the builder once when the next layer is due, and never the viewer', async () => {
     await logPour('Mill leat');
@@ -122,7 +124,7 @@ describe('cure reminders', () => {
     const [message] = mailTo(builder, 'Mill leat');
     expect(message!.subject).toBe('Layer 2 of 2 can go on');
     expect(message!.text).toContain('/builds/' + buildId + '?pour=');
-  });
+  }, SWEEP_MS);
 
   it('should push to a subscribed browser, checked and decrypted by the push service', async () => {
     await choose(builder, ['push'], null);
@@ -140,7 +142,7 @@ describe('cure reminders', () => {
     expect(notification.title).toBe('Layer 2 of 2 can go on');
     expect(notification.data.url).toBe(`/builds/${buildId}?pour=${pour.id}`);
     expect(push.refused).toEqual([]);
-  });
+  }, SWEEP_MS);
 
   it('should cancel the reminders of a deleted pour', async () => {
     const pour = await logPour('Deleted pool');
@@ -151,7 +153,7 @@ describe('cure reminders', () => {
     expect(mailTo(builder, 'Deleted pool')).toEqual([]);
     const rows = await server.ctx.db.select().from(reminders).where(eq(reminders.pourId, pour.id));
     expect(rows.every((row) => row.cancelledAt !== null)).toBeTrue();
-  });
+  }, SWEEP_MS);
 
   it('should hold a reminder due in quiet hours until they end', async () => {
     // Quiet from the next minute for two hours, on the test clock in UTC.
@@ -171,7 +173,7 @@ describe('cure reminders', () => {
     await tick();
     await server.mail.waitFor(builder.email, (m) => m.text.includes('Quiet pool'));
     expect(mailTo(builder, 'Quiet pool').length).toBe(1);
-  });
+  }, SWEEP_MS);
 
   it('should try a failed push again later and deliver it exactly once', async () => {
     await choose(builder, ['push'], null);
@@ -194,7 +196,7 @@ describe('cure reminders', () => {
     await tick();
     await tick();
     expect(push.received.filter((p) => p.payload.includes('Retry pool')).length).toBe(1);
-  });
+  }, SWEEP_MS);
 
   it('should forget a browser that unsubscribed (410)', async () => {
     await choose(builder, ['push'], null);
@@ -208,7 +210,7 @@ describe('cure reminders', () => {
       where: (table, { eq: equals }) => equals(table.endpoint, gone.endpoint),
     });
     expect(left).toEqual([]);
-  });
+  }, SWEEP_MS);
 
   it('should send each reminder exactly once with two workers running at once', async () => {
     await choose(builder, ['push'], null);
@@ -254,7 +256,7 @@ describe('cure reminders', () => {
     await tick();
     await new Promise((resolve) => setTimeout(resolve, 300));
     expect(mailTo(owner, 'Digest resin').length).toBe(1);
-  });
+  }, SWEEP_MS);
 
   it('should run on pg-boss: a queued tick in either of two API processes sends what is due, once', async () => {
     await choose(builder, ['push'], null);
