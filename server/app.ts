@@ -15,6 +15,7 @@ import { costRoutes } from './costs/cost-routes.js';
 import { photoRoutes } from './photos/photo-routes.js';
 import { pourRoutes } from './pours/pour-routes.js';
 import { shelfRoutes } from './shelf/shelf-routes.js';
+import { reminderRoutes } from './reminders/reminder-routes.js';
 import { syncRoutes } from './sync/sync-routes.js';
 import { workshopRoutes } from './workshops/workshop-routes.js';
 import { appFiles } from './web/app-files.js';
@@ -70,6 +71,7 @@ export function createApp(ctx: ServerContext): Express {
   api.use(photoRoutes(ctx));
   api.use(costRoutes(ctx));
   api.use(syncRoutes(ctx));
+  api.use(reminderRoutes(ctx));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -39,6 +39,7 @@ import { may, type WorkshopAction } from '../../shared/workshop-policy.js';
 import { SESSION_COOKIE } from '../auth/lucia-session-store.js';
 import { EXPORT_TABLES } from '../export/export-service.js';
 import { PHOTO_BODY_NAMES, PHOTO_PATH_PARAMETERS, PHOTO_ROUTES } from './photo-operations.js';
+import { REMINDER_BODY_NAMES, REMINDER_ROUTES } from './reminder-operations.js';
 
 export type OpenApiDocument = ReturnType<OpenApiGeneratorV3['generateDocument']>;
 
@@ -70,6 +71,10 @@ const TAGS = [
   {
     name: 'Photos',
     description: 'Bench photos of a build, a step or a pour: kept without location or other metadata.',
+  },
+  {
+    name: 'Reminders',
+    description: 'When a pour needs you back at the bench, and the weekly word on the shelf: by push or e-mail.',
   },
   { name: 'Costs and export', description: "What builds cost, and a workshop's records to keep or take elsewhere." },
   {
@@ -132,6 +137,7 @@ const BODY_NAMES = new Map<z.ZodType, string>([
   [newPourSchema, 'NewPour'],
   [pushRequestSchema, 'PushRequest'],
   ...PHOTO_BODY_NAMES,
+  ...REMINDER_BODY_NAMES,
 ]);
 
 const recordId = (what: string) => z.uuid().meta({ description: what });
@@ -688,6 +694,7 @@ const API_ROUTES: readonly ApiRoute[] = [
     refusals: { 404: noSuch('pour') },
   },
   ...PHOTO_ROUTES,
+  ...REMINDER_ROUTES,
   {
     method: 'get',
     path: `${w}/costs`,

@@ -124,6 +124,30 @@ const MATRIX: readonly Row[] = [
     expected: everyone(400),
   },
   { route: 'GET /api/account', path: () => '/api/account', expected: signedInOnly(200) },
+  { route: 'GET /api/reminders/push-key', path: () => '/api/reminders/push-key', expected: everyone(200) },
+  { route: 'GET /api/account/reminders', path: () => '/api/account/reminders', expected: signedInOnly(200) },
+  {
+    route: 'PUT /api/account/reminders',
+    path: () => '/api/account/reminders',
+    body: () => ({ kinds: ['demould'], channels: ['email'], quietHours: null, timeZone: 'UTC' }),
+    expected: signedInOnly(200),
+  },
+  {
+    route: 'POST /api/account/push-subscriptions',
+    path: () => '/api/account/push-subscriptions',
+    body: () => ({
+      endpoint: `https://push.invalid/${v7()}`,
+      keys: { p256dh: 'BPxq3Jm0Jd8', auth: 'c2VjcmV0' },
+      label: 'Phone',
+    }),
+    expected: signedInOnly(204),
+  },
+  {
+    route: 'DELETE /api/account/push-subscriptions',
+    path: () => '/api/account/push-subscriptions',
+    body: () => ({ endpoint: 'https://push.invalid/gone' }),
+    expected: signedInOnly(204),
+  },
   {
     route: 'PATCH /api/account',
     path: () => '/api/account',
