@@ -17,11 +17,12 @@ import { Connectivity } from './core/connectivity';
 import { DevicePreferences } from './core/device-preferences';
 import { InstallOffer } from './core/install-offer';
 import { NAVIGATION } from './core/navigation';
+import { PourAlertBanner } from './reminders/pour-alert-banner';
 import { SyncStatus } from './sync/sync-status';
 
 @Component({
   selector: 'bt-root',
-  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatIconModule, SyncStatus],
+  imports: [RouterOutlet, RouterLink, RouterLinkActive, MatIconModule, SyncStatus, PourAlertBanner],
   templateUrl: './app.html',
   styleUrl: './app.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,

@@ -8,7 +8,8 @@ import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatFormFieldHarness } from '@angular/material/form-field/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
 import { provideRouter, Router } from '@angular/router';
-import type { SessionView } from '@benchtide/shared';
+import { defaultReminderPreferences, type SessionView } from '@benchtide/shared';
+import { provideServiceWorker } from '@angular/service-worker';
 import { BenchIcons } from '../core/bench-icons';
 import { AccountPage } from './account-page';
 import { AccountSession } from './account-session';
@@ -39,12 +40,15 @@ describe('AccountPage', () => {
         provideHttpClient(),
         provideHttpClientTesting(),
         provideAppInitializer(() => inject(BenchIcons).register()),
+        provideServiceWorker('ngsw-worker.js', { enabled: false }),
       ],
     });
     http = TestBed.inject(HttpTestingController);
     navigateByUrl = spyOn(TestBed.inject(Router), 'navigateByUrl').and.resolveTo(true);
     fixture = TestBed.createComponent(AccountPage);
     loader = TestbedHarnessEnvironment.loader(fixture);
+    fixture.detectChanges();
+    http.expectOne('/api/account/reminders').flush({ preferences: defaultReminderPreferences('UTC'), devices: [] });
     await fixture.whenStable();
   });
   afterEach(() => {

@@ -12,6 +12,7 @@ import { AccountSession } from './account-session';
 import { DisplayNameForm } from './display-name-form';
 import { PasswordChangeForm } from './password-change-form';
 import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';
+import { ReminderSettings } from '../reminders/reminder-settings';
 
 @Component({
   providers: [ROOMY_FORM_FIELDS],
@@ -25,6 +26,7 @@ import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';
     DisplayNameForm,
     PasswordChangeForm,
     AccountDeletion,
+    ReminderSettings,
   ],
   templateUrl: './account-page.html',
   styleUrl: './account-page.scss',

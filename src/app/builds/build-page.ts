@@ -4,6 +4,7 @@ import {
   ElementRef,
   LOCALE_ID,
   afterNextRender,
+  afterRenderEffect,
   computed,
   inject,
   Injector,
@@ -88,6 +89,8 @@ export class BuildPage {
 
   /** From the route `builds/:buildId`. */
   readonly buildId = input.required<string>();
+  /** From `?pour=`: the pour a reminder led here for, shown marked and scrolled to. */
+  readonly pour = input<string>();
   private readonly stepFormHost = viewChild<ElementRef<HTMLElement>>('stepFormHost');
 
   protected readonly filters = FILTERS;
@@ -145,6 +148,16 @@ export class BuildPage {
   protected readonly status = computed(() => {
     const build = this.build();
     return build ? STATUS_SHOWN[build.status] : null;
+  });
+  private readonly host = inject<ElementRef<HTMLElement>>(ElementRef);
+  private readonly scrolledTo = signal<string | null>(null);
+  private readonly scrollToPour = afterRenderEffect(() => {
+    const pourId = this.pour();
+    if (!pourId || this.scrolledTo() === pourId) return;
+    const entry = this.host.nativeElement.querySelector(`[data-pour="${CSS.escape(pourId)}"]`);
+    if (entry === null) return;
+    entry.scrollIntoView({ block: 'center' });
+    this.scrolledTo.set(pourId);
   });
   protected readonly entries = computed<LogEntry[]>(() => {
     const filter = this.filter();

@@ -1,0 +1,167 @@
+import { ChangeDetectionStrategy, Component, OnInit, computed, inject, signal } from '@angular/core';
+import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { MatButtonModule } from '@angular/material/button';
+import { MatCardModule } from '@angular/material/card';
+import { MatCheckboxModule } from '@angular/material/checkbox';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { MatProgressBarModule } from '@angular/material/progress-bar';
+import { MatSelectModule } from '@angular/material/select';
+import { MatSlideToggleModule } from '@angular/material/slide-toggle';
+import {
+  REMINDER_CHANNELS,
+  REMINDER_KINDS,
+  reminderPreferencesSchema,
+  type ReminderChannel,
+  type ReminderKind,
+  type ReminderPreferences,
+} from '@benchtide/shared';
+import { ProblemNote } from '../core/problem-note';
+import { fieldMessage, Submission } from '../core/submission';
+import { DevicePush } from './device-push';
+import { ReminderApi, type PushDevice } from './reminder-api';
+
+const KIND_LABELS: Record<ReminderKind, string> = {
+  'next-layer-due': 'The next layer of a pour can go on',
+  demould: 'A pour can be demoulded',
+  'full-cure': 'A pour has fully cured',
+  'shelf-digest': 'Mondays: what on the shelf runs low or goes off',
+};
+const CHANNEL_LABELS: Record<ReminderChannel, string> = {
+  push: 'A notification on the devices below',
+  email: 'An e-mail',
+};
+
+/** Which reminders the member gets, how, when not, and on which of their devices. */
+@Component({
+  selector: 'bt-reminder-settings',
+  imports: [
+    ReactiveFormsModule,
+    MatButtonModule,
+    MatCardModule,
+    MatCheckboxModule,
+    MatFormFieldModule,
+    MatInputModule,
+    MatProgressBarModule,
+    MatSelectModule,
+    MatSlideToggleModule,
+    ProblemNote,
+  ],
+  templateUrl: './reminder-settings.html',
+  styleUrl: './reminder-settings.scss',
+  changeDetection: ChangeDetectionStrategy.OnPush,
+})
+export class ReminderSettings implements OnInit {
+  private readonly api = inject(ReminderApi);
+  protected readonly push = inject(DevicePush);
+  private readonly formBuilder = inject(NonNullableFormBuilder);
+
+  protected readonly kinds = REMINDER_KINDS.map((kind) => ({ kind, label: KIND_LABELS[kind] }));
+  protected readonly channels = REMINDER_CHANNELS.map((channel) => ({ channel, label: CHANNEL_LABELS[channel] }));
+  protected readonly timeZones = supportedTimeZones();
+  protected readonly form = this.formBuilder.group({
+    kinds: this.formBuilder.group(
+      Object.fromEntries(REMINDER_KINDS.map((kind) => [kind, true])) as Record<ReminderKind, boolean>,
+    ),
+    channels: this.formBuilder.group({ push: true, email: false }),
+    quiet: true,
+    quietFrom: '22:00',
+    quietUntil: '07:00',
+    timeZone: Intl.DateTimeFormat().resolvedOptions().timeZone,
+  });
+  protected readonly submission = new Submission(this.form);
+  protected readonly pushing = new Submission();
+  protected readonly fieldMessage = fieldMessage;
+  protected readonly loaded = signal(false);
+  protected readonly loadFailed = signal(false);
+  protected readonly saved = signal(false);
+  protected readonly devices = signal<readonly PushDevice[]>([]);
+  protected readonly thisDeviceOn = computed(() => {
+    const endpoint = this.push.endpoint();
+    return endpoint !== null && this.devices().some((device) => device.endpoint === endpoint);
+  });
+
+  async ngOnInit(): Promise<void> {
+    try {
+      const view = await this.api.load();
+      this.show(view.preferences);
+      this.devices.set(view.devices);
+      this.loaded.set(true);
+    } catch {
+      this.loadFailed.set(true);
+    }
+  }
+
+  protected async save(): Promise<void> {
+    this.saved.set(false);
+    const sent = await this.submission.checkAndSend(reminderPreferencesSchema, this.preferences(), async (request) =>
+      this.show(await this.api.save(request)),
+    );
+    this.saved.set(sent);
+  }
+
+  protected async turnOnHere(): Promise<void> {
+    const done = await this.pushing.send(() => this.push.turnOn(deviceLabel()));
+    if (done) await this.reloadDevices();
+  }
+
+  protected async turnOffHere(): Promise<void> {
+    if (await this.pushing.send(() => this.push.turnOff())) await this.reloadDevices();
+  }
+
+  protected async forget(device: PushDevice): Promise<void> {
+    if (await this.pushing.send(() => this.api.unsubscribe(device.endpoint))) await this.reloadDevices();
+  }
+
+  private async reloadDevices(): Promise<void> {
+    this.devices.set((await this.api.load()).devices);
+  }
+
+  private preferences(): ReminderPreferences {
+    const value = this.form.getRawValue();
+    return {
+      kinds: REMINDER_KINDS.filter((kind) => value.kinds[kind]),
+      channels: REMINDER_CHANNELS.filter((channel) => value.channels[channel]),
+      quietHours: value.quiet ? { from: value.quietFrom, until: value.quietUntil } : null,
+      timeZone: value.timeZone,
+    };
+  }
+
+  private show(preferences: ReminderPreferences): void {
+    this.form.setValue({
+      kinds: Object.fromEntries(REMINDER_KINDS.map((kind) => [kind, preferences.kinds.includes(kind)])) as Record<
+        ReminderKind,
+        boolean
+      >,
+      channels: { push: preferences.channels.includes('push'), email: preferences.channels.includes('email') },
+      quiet: preferences.quietHours !== null,
+      quietFrom: preferences.quietHours?.from ?? '22:00',
+      quietUntil: preferences.quietHours?.until ?? '07:00',
+      timeZone: preferences.timeZone,
+    });
+  }
+}
+
+function supportedTimeZones(): string[] {
+  const withValues = Intl as typeof Intl & { supportedValuesOf?: (key: 'timeZone') => string[] };
+  const zones = withValues.supportedValuesOf?.('timeZone') ?? [];
+  const here = Intl.DateTimeFormat().resolvedOptions().timeZone;
+  return [...new Set(['UTC', here, ...zones])].sort();
+}
+
+/** A name the member will recognise in the list of their devices. */
+function deviceLabel(): string {
+  const agent = navigator.userAgent;
+  const system = /Android/.test(agent)
+    ? 'Android'
+    : /iPhone|iPad/.test(agent)
+      ? 'iPhone or iPad'
+      : /Mac OS/.test(agent)
+        ? 'Mac'
+        : /Windows/.test(agent)
+          ? 'Windows'
+          : /Linux/.test(agent)
+            ? 'Linux'
+            : 'A device';
+  return `${system}, added ${new Date().toLocaleDateString()}`;
+}
