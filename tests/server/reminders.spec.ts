@@ -94,123 +94,151 @@ describe('cure reminders', () => {
     await runDueReminders(server.ctx, sending);
   }
 
-  it('should schedule a pour’s moments when it reaches the server', async () => {
-    const pour = await logPour('Scheduled pool');
-    const rows = await server.ctx.db.select().from(reminders).where(eq(reminders.pourId, pour.id));
-    const byKey = Object.fromEntries(rows.map((row) => [row.key, row.dueAt.getTime() - pour.startMs]));
-    const minutes = 60_000;
-    expect(byKey).toEqual({
-      'next-layer-due:2': 240 * minutes,
-      demould: (240 + 1440) * minutes,
-      'full-cure': (240 + 4320) * minutes,
-    });
-  }, SWEEP_MS);
+  it(
+    'should schedule a pour’s moments when it reaches the server',
+    async () => {
+      const pour = await logPour('Scheduled pool');
+      const rows = await server.ctx.db.select().from(reminders).where(eq(reminders.pourId, pour.id));
+      const byKey = Object.fromEntries(rows.map((row) => [row.key, row.dueAt.getTime() - pour.startMs]));
+      const minutes = 60_000;
+      expect(byKey).toEqual({
+        'next-layer-due:2': 240 * minutes,
+        demould: (240 + 1440) * minutes,
+        'full-cure': (240 + 4320) * minutes,
+      });
+    },
+    SWEEP_MS,
+  );
 
-  it('should e-mail the owner and the builder once when the next layer is due, and never the viewer', async () => {
-    await logPour('Mill leat');
-    server.clock.advanceMinutes(239);
-    await tick();
-    expect(mailTo(builder, 'Mill leat')).toEqual([]);
+  it(
+    'should e-mail the owner and the builder once when the next layer is due, and never the viewer',
+    async () => {
+      await logPour('Mill leat');
+      server.clock.advanceMinutes(239);
+      await tick();
+      expect(mailTo(builder, 'Mill leat')).toEqual([]);
 
-    server.clock.advanceMinutes(2);
-    await tick();
-    await server.mail.waitFor(builder.email, (m) => m.text.includes('Mill leat'));
-    await server.mail.waitFor(owner.email, (m) => m.text.includes('Mill leat'));
-    await tick();
-    await new Promise((resolve) => setTimeout(resolve, 300));
-    expect(mailTo(builder, 'Mill leat').length).toBe(1);
-    expect(mailTo(owner, 'Mill leat').length).toBe(1);
-    expect(mailTo(viewer, 'Mill leat')).toEqual([]);
-    const [message] = mailTo(builder, 'Mill leat');
-    expect(message!.subject).toBe('Layer 2 of 2 can go on');
-    expect(message!.text).toContain('/builds/' + buildId + '?pour=');
-  }, SWEEP_MS);
+      server.clock.advanceMinutes(2);
+      await tick();
+      await server.mail.waitFor(builder.email, (m) => m.text.includes('Mill leat'));
+      await server.mail.waitFor(owner.email, (m) => m.text.includes('Mill leat'));
+      await tick();
+      await new Promise((resolve) => setTimeout(resolve, 300));
+      expect(mailTo(builder, 'Mill leat').length).toBe(1);
+      expect(mailTo(owner, 'Mill leat').length).toBe(1);
+      expect(mailTo(viewer, 'Mill leat')).toEqual([]);
+      const [message] = mailTo(builder, 'Mill leat');
+      expect(message!.subject).toBe('Layer 2 of 2 can go on');
+      expect(message!.text).toContain('/builds/' + buildId + '?pour=');
+    },
+    SWEEP_MS,
+  );
 
-  it('should push to a subscribed browser, checked and decrypted by the push service', async () => {
-    await choose(builder, ['push'], null);
-    await subscribe(server.ctx, builder.id, { ...push.subscribe('tomas-phone'), label: 'Phone' });
-    const pour = await logPour('Sluice pool');
-    server.clock.advanceMinutes(241);
-    await tick();
-    await tick();
-    const mine = push.received.filter((p) => p.payload.includes('Sluice pool'));
-    expect(mine.length).toBe(1);
-    expect(mine[0]!.device).toBe('tomas-phone');
-    const { notification } = JSON.parse(mine[0]!.payload) as {
-      notification: { title: string; data: { url: string } };
-    };
-    expect(notification.title).toBe('Layer 2 of 2 can go on');
-    expect(notification.data.url).toBe(`/builds/${buildId}?pour=${pour.id}`);
-    expect(push.refused).toEqual([]);
-  }, SWEEP_MS);
+  it(
+    'should push to a subscribed browser, checked and decrypted by the push service',
+    async () => {
+      await choose(builder, ['push'], null);
+      await subscribe(server.ctx, builder.id, { ...push.subscribe('tomas-phone'), label: 'Phone' });
+      const pour = await logPour('Sluice pool');
+      server.clock.advanceMinutes(241);
+      await tick();
+      await tick();
+      const mine = push.received.filter((p) => p.payload.includes('Sluice pool'));
+      expect(mine.length).toBe(1);
+      expect(mine[0]!.device).toBe('tomas-phone');
+      const { notification } = JSON.parse(mine[0]!.payload) as {
+        notification: { title: string; data: { url: string } };
+      };
+      expect(notification.title).toBe('Layer 2 of 2 can go on');
+      expect(notification.data.url).toBe(`/builds/${buildId}?pour=${pour.id}`);
+      expect(push.refused).toEqual([]);
+    },
+    SWEEP_MS,
+  );
 
-  it('should cancel the reminders of a deleted pour', async () => {
-    const pour = await logPour('Deleted pool');
-    await client.delete(`/pours/${pour.id}`).expect(204);
-    server.clock.advanceMinutes(5000);
-    await tick();
-    await new Promise((resolve) => setTimeout(resolve, 300));
-    expect(mailTo(builder, 'Deleted pool')).toEqual([]);
-    const rows = await server.ctx.db.select().from(reminders).where(eq(reminders.pourId, pour.id));
-    expect(rows.every((row) => row.cancelledAt !== null)).toBeTrue();
-  }, SWEEP_MS);
+  it(
+    'should cancel the reminders of a deleted pour',
+    async () => {
+      const pour = await logPour('Deleted pool');
+      await client.delete(`/pours/${pour.id}`).expect(204);
+      server.clock.advanceMinutes(5000);
+      await tick();
+      await new Promise((resolve) => setTimeout(resolve, 300));
+      expect(mailTo(builder, 'Deleted pool')).toEqual([]);
+      const rows = await server.ctx.db.select().from(reminders).where(eq(reminders.pourId, pour.id));
+      expect(rows.every((row) => row.cancelledAt !== null)).toBeTrue();
+    },
+    SWEEP_MS,
+  );
 
-  it('should hold a reminder due in quiet hours until they end', async () => {
-    // Quiet from the next minute for two hours, on the test clock in UTC.
-    const now = server.clock.now();
-    const hhmm = (date: Date) => date.toISOString().slice(11, 16);
-    const from = new Date(now.getTime() + 239 * 60_000);
-    const until = new Date(now.getTime() + 360 * 60_000);
-    await choose(builder, ['email'], { from: hhmm(from), until: hhmm(until) });
-    await logPour('Quiet pool');
-    server.clock.advanceMinutes(245);
-    await tick();
-    await new Promise((resolve) => setTimeout(resolve, 300));
-    expect(mailTo(builder, 'Quiet pool')).toEqual([]);
-    await server.mail.waitFor(owner.email, (m) => m.text.includes('Quiet pool'));
+  it(
+    'should hold a reminder due in quiet hours until they end',
+    async () => {
+      // Quiet from the next minute for two hours, on the test clock in UTC.
+      const now = server.clock.now();
+      const hhmm = (date: Date) => date.toISOString().slice(11, 16);
+      const from = new Date(now.getTime() + 239 * 60_000);
+      const until = new Date(now.getTime() + 360 * 60_000);
+      await choose(builder, ['email'], { from: hhmm(from), until: hhmm(until) });
+      await logPour('Quiet pool');
+      server.clock.advanceMinutes(245);
+      await tick();
+      await new Promise((resolve) => setTimeout(resolve, 300));
+      expect(mailTo(builder, 'Quiet pool')).toEqual([]);
+      await server.mail.waitFor(owner.email, (m) => m.text.includes('Quiet pool'));
 
-    server.clock.advanceMinutes(120);
-    await tick();
-    await server.mail.waitFor(builder.email, (m) => m.text.includes('Quiet pool'));
-    expect(mailTo(builder, 'Quiet pool').length).toBe(1);
-  }, SWEEP_MS);
+      server.clock.advanceMinutes(120);
+      await tick();
+      await server.mail.waitFor(builder.email, (m) => m.text.includes('Quiet pool'));
+      expect(mailTo(builder, 'Quiet pool').length).toBe(1);
+    },
+    SWEEP_MS,
+  );
 
-  it('should try a failed push again later and deliver it exactly once', async () => {
-    await choose(builder, ['push'], null);
-    await subscribe(server.ctx, builder.id, { ...push.subscribe('retry-phone'), label: '' });
-    await logPour('Retry pool');
-    push.answerWith(503);
-    server.clock.advanceMinutes(241);
-    await tick();
-    expect(push.received.filter((p) => p.payload.includes('Retry pool'))).toEqual([]);
-    const [waiting] = await server.ctx.db
-      .select()
-      .from(reminderDeliveries)
-      .where(and(eq(reminderDeliveries.userId, builder.id), eq(reminderDeliveries.status, 'waiting')));
-    expect(waiting?.lastError).toBe('the push service answered 503');
+  it(
+    'should try a failed push again later and deliver it exactly once',
+    async () => {
+      await choose(builder, ['push'], null);
+      await subscribe(server.ctx, builder.id, { ...push.subscribe('retry-phone'), label: '' });
+      await logPour('Retry pool');
+      push.answerWith(503);
+      server.clock.advanceMinutes(241);
+      await tick();
+      expect(push.received.filter((p) => p.payload.includes('Retry pool'))).toEqual([]);
+      const [waiting] = await server.ctx.db
+        .select()
+        .from(reminderDeliveries)
+        .where(and(eq(reminderDeliveries.userId, builder.id), eq(reminderDeliveries.status, 'waiting')));
+      expect(waiting?.lastError).toBe('the push service answered 503');
 
-    push.answerWith(null);
-    await tick();
-    expect(push.received.filter((p) => p.payload.includes('Retry pool'))).toEqual([]);
-    server.clock.advanceMinutes(2);
-    await tick();
-    await tick();
-    expect(push.received.filter((p) => p.payload.includes('Retry pool')).length).toBe(1);
-  }, SWEEP_MS);
+      push.answerWith(null);
+      await tick();
+      expect(push.received.filter((p) => p.payload.includes('Retry pool'))).toEqual([]);
+      server.clock.advanceMinutes(2);
+      await tick();
+      await tick();
+      expect(push.received.filter((p) => p.payload.includes('Retry pool')).length).toBe(1);
+    },
+    SWEEP_MS,
+  );
 
-  it('should forget a browser that unsubscribed (410)', async () => {
-    await choose(builder, ['push'], null);
-    const gone = push.subscribe('old-laptop');
-    await subscribe(server.ctx, builder.id, { ...gone, label: '' });
-    await logPour('Gone pool');
-    push.answerWith(410);
-    server.clock.advanceMinutes(241);
-    await tick();
-    const left = await server.ctx.db.query.pushSubscriptions.findMany({
-      where: (table, { eq: equals }) => equals(table.endpoint, gone.endpoint),
-    });
-    expect(left).toEqual([]);
-  }, SWEEP_MS);
+  it(
+    'should forget a browser that unsubscribed (410)',
+    async () => {
+      await choose(builder, ['push'], null);
+      const gone = push.subscribe('old-laptop');
+      await subscribe(server.ctx, builder.id, { ...gone, label: '' });
+      await logPour('Gone pool');
+      push.answerWith(410);
+      server.clock.advanceMinutes(241);
+      await tick();
+      const left = await server.ctx.db.query.pushSubscriptions.findMany({
+        where: (table, { eq: equals }) => equals(table.endpoint, gone.endpoint),
+      });
+      expect(left).toEqual([]);
+    },
+    SWEEP_MS,
+  );
 
   it('should send each reminder exactly once with two workers running at once', async () => {
     await choose(builder, ['push'], null);
@@ -239,24 +267,28 @@ describe('cure reminders', () => {
     }
   }, 30_000);
 
-  it('should send the weekly shelf digest once a week per member, naming what needs a look', async () => {
-    // A fresh workshop so only its own shelf counts: one part low (120 g left of 500, warn at 150).
-    const shelfClub = (await makeWorkshop(server.ctx, owner, 'Digest club')).id;
-    const shelf = api(server, owner, shelfClub);
-    const resin = await addMaterial(shelf, { name: 'Digest resin' });
-    await addContainer(shelf, resin, { part: 'A', sizeQty: 120, lowStockQty: 150 });
-    await addContainer(shelf, resin, { part: 'B', sizeQty: 500, lowStockQty: 150 });
-    const now = server.clock.now();
-    await queueShelfDigests(server.ctx, now);
-    await queueShelfDigests(server.ctx, now);
-    await tick();
-    const digest = await server.mail.waitFor(owner.email, (m) => m.text.includes('Digest resin'));
-    expect(digest.subject).toBe('One thing on the shelf needs a look');
-    expect(digest.text).toContain('Digest resin part A: low, 120 g left');
-    await tick();
-    await new Promise((resolve) => setTimeout(resolve, 300));
-    expect(mailTo(owner, 'Digest resin').length).toBe(1);
-  }, SWEEP_MS);
+  it(
+    'should send the weekly shelf digest once a week per member, naming what needs a look',
+    async () => {
+      // A fresh workshop so only its own shelf counts: one part low (120 g left of 500, warn at 150).
+      const shelfClub = (await makeWorkshop(server.ctx, owner, 'Digest club')).id;
+      const shelf = api(server, owner, shelfClub);
+      const resin = await addMaterial(shelf, { name: 'Digest resin' });
+      await addContainer(shelf, resin, { part: 'A', sizeQty: 120, lowStockQty: 150 });
+      await addContainer(shelf, resin, { part: 'B', sizeQty: 500, lowStockQty: 150 });
+      const now = server.clock.now();
+      await queueShelfDigests(server.ctx, now);
+      await queueShelfDigests(server.ctx, now);
+      await tick();
+      const digest = await server.mail.waitFor(owner.email, (m) => m.text.includes('Digest resin'));
+      expect(digest.subject).toBe('One thing on the shelf needs a look');
+      expect(digest.text).toContain('Digest resin part A: low, 120 g left');
+      await tick();
+      await new Promise((resolve) => setTimeout(resolve, 300));
+      expect(mailTo(owner, 'Digest resin').length).toBe(1);
+    },
+    SWEEP_MS,
+  );
 
   it('should run on pg-boss: a queued tick in either of two API processes sends what is due, once', async () => {
     await choose(builder, ['push'], null);
