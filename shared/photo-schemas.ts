@@ -39,6 +39,17 @@ export const photoUploadFieldsSchema = z
     stepId: z.preprocess((value) => (value === '' ? null : value), optionalId('Step')),
     pourId: z.preprocess((value) => (value === '' ? null : value), optionalId('Pour')),
     caption: caption.default(''),
+    /**
+     * When the camera took it, as the device read the file: its EXIF clock time in the device's own
+     * time zone. The server keeps it when the file's time carries no zone of its own.
+     */
+    takenAt: z.preprocess(
+      (value) => (value === '' ? null : value),
+      z.iso
+        .datetime({ offset: true, error: 'Taken at must be a date and time' })
+        .nullish()
+        .transform((value) => value ?? null),
+    ),
   })
   .refine((fields) => !(fields.stepId && fields.pourId), {
     error: 'A photo belongs to a step or to a pour, not both',

@@ -17,6 +17,8 @@ const EXIF_HEADER = Buffer.from('Exif\0\0', 'latin1');
 export interface PhotoCopies {
   /** When the camera took it; null when the file does not say. */
   takenAt: Date | null;
+  /** Whether the file gave its time's zone (EXIF OffsetTimeOriginal); without it the time was read as UTC. */
+  takenAtZoned: boolean;
   /** Of the display copy, upright. */
   width: number;
   height: number;
@@ -50,7 +52,7 @@ export async function makeCopies(bytes: Buffer): Promise<PhotoCopies> {
       .jpeg({ quality: 78, mozjpeg: true })
       .toBuffer();
     return {
-      takenAt: await takenAtOf(exif),
+      ...(await takenAtOf(exif)),
       width: display.info.width,
       height: display.info.height,
       display: display.data,
@@ -95,15 +97,20 @@ function unreadable(error: unknown): AppError {
   );
 }
 
-async function takenAtOf(exif: Buffer | undefined): Promise<Date | null> {
-  if (!exif) return null;
+async function takenAtOf(exif: Buffer | undefined): Promise<{ takenAt: Date | null; takenAtZoned: boolean }> {
+  const unknown = { takenAt: null, takenAtZoned: false };
+  if (!exif) return unknown;
   // The image library hands EXIF over with or without its JPEG marker; the reader wants the TIFF block.
   const tiff = exif.subarray(0, EXIF_HEADER.length).equals(EXIF_HEADER) ? exif.subarray(EXIF_HEADER.length) : exif;
   try {
     const tags = await exifr.parse(tiff, { reviveValues: false, pick: ['DateTimeOriginal', 'OffsetTimeOriginal'] });
-    return instantOf(tags?.DateTimeOriginal, tags?.OffsetTimeOriginal);
+    const takenAt = instantOf(tags?.DateTimeOriginal, tags?.OffsetTimeOriginal);
+    return {
+      takenAt,
+      takenAtZoned: takenAt !== null && /^[+-]\d{2}:\d{2}$/.test(String(tags?.OffsetTimeOriginal ?? '')),
+    };
   } catch {
-    return null;
+    return unknown;
   }
 }
 

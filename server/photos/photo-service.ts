@@ -68,7 +68,8 @@ export async function uploadPhoto(
         id: photoId,
         workshopId,
         changeNumber,
-        takenAt: copies.takenAt,
+        // A time without its zone is the camera's clock: the device that read it knows the zone, the server does not.
+        takenAt: copies.takenAtZoned || !fields.takenAt ? copies.takenAt : new Date(fields.takenAt),
         width: copies.width,
         height: copies.height,
         contentHash,

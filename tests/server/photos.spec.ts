@@ -67,6 +67,17 @@ describe('uploading bench photos', () => {
   }
 
   describe('when the photo carries location, time and orientation', () => {
+    it('should take the device’s reading of a camera time that has no zone, and the file’s own zone over it', async () => {
+      // EXIF 2.32: DateTimeOriginal is the camera's clock; OffsetTimeOriginal, when written, its zone.
+      const unzoned = await benchJpeg({ exif: { IFD2: { DateTimeOriginal: '2026:11:20 18:30:15' } } });
+      const read = await upload(v7(), unzoned, { buildId, takenAt: '2026-11-20T17:30:15.000Z' }).expect(201);
+      expect(read.body.takenAt).toBe('2026-11-20T17:30:15.000Z');
+      const zoned = await benchJpeg({ exif: WHERE_AND_WHEN, shade: 3 });
+      const own = await upload(v7(), zoned, { buildId, takenAt: '2026-11-20T18:30:15.000Z' }).expect(201);
+      expect(own.body.takenAt).toBe('2026-11-20T16:30:15.000Z');
+      await upload(v7(), unzoned, { buildId, takenAt: 'yesterday' }).expect(400);
+    });
+
     it('should keep copies with no metadata at all, and take the time the camera wrote', async () => {
       const original = await benchJpeg({ width: 800, height: 600, exif: WHERE_AND_WHEN });
       // The fixture must really carry what the server is to strip.

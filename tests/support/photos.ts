@@ -42,6 +42,7 @@ export interface UploadFields {
   stepId?: string;
   pourId?: string;
   caption?: string;
+  takenAt?: string;
 }
 
 /** PUT a photo as the app does: a multipart form with the file in "photo" and the fields beside it. */

@@ -64,6 +64,13 @@ export async function makeRecords(ctx: ServerContext, owner: TestAccount, worksh
     note: '',
   });
   const photo = await benchJpeg({ width: 64, height: 48 });
-  await uploadPhoto(ctx, owner.id, workshopId, photoId, { buildId, stepId, pourId: null, caption: 'Dry fit' }, photo);
+  await uploadPhoto(
+    ctx,
+    owner.id,
+    workshopId,
+    photoId,
+    { buildId, stepId, pourId: null, caption: 'Dry fit', takenAt: null },
+    photo,
+  );
   return { buildId, stepId, materialId, containerId, pourId, photoId };
 }
