@@ -21,13 +21,26 @@ function SummaryFileReporter(baseReporterDecorator) {
 }
 SummaryFileReporter.$inject = ['baseReporterDecorator'];
 
+/** Says which random order the specs ran in, so a failure that needed it can be run again in the same one. */
+function SeedReporter() {
+  this.onBrowserComplete = (_browser, result) => {
+    const seed = result?.order?.seed;
+    if (seed) process.stdout.write(`\nRandom order, seed ${seed} (again: BENCHTIDE_KARMA_SEED=${seed})\n`);
+  };
+}
+
 export default function (config) {
   config.set({
     basePath: '',
     frameworks: ['jasmine'],
-    plugins: [karmaJasmine, karmaChromeLauncher, { 'reporter:summary-file': ['type', SummaryFileReporter] }],
-    client: { jasmine: { random: true }, clearContext: true },
-    reporters: ['dots', 'summary-file'],
+    plugins: [
+      karmaJasmine,
+      karmaChromeLauncher,
+      { 'reporter:summary-file': ['type', SummaryFileReporter] },
+      { 'reporter:seed': ['type', SeedReporter] },
+    ],
+    client: { jasmine: { random: true, seed: process.env.BENCHTIDE_KARMA_SEED }, clearContext: true },
+    reporters: ['dots', 'summary-file', 'seed'],
     browsers: ['ChromiumHeadlessBench'],
     customLaunchers: {
       ChromiumHeadlessBench: {
