@@ -52,7 +52,7 @@ describe('BuildPhotos', () => {
           id: photo.id,
           workshopId: WORKSHOP,
           fileName: 'riverbed.jpg',
-          fields: { buildId, stepId, pourId: null, caption: '' },
+          fields: { buildId, stepId, pourId: null, caption: '', takenAt: '2025-03-01T09:30:00.000Z' },
           state: 'waiting',
           attempts: 0,
           lastError: null,

@@ -109,8 +109,15 @@ export class BuildPhotos {
   ): Promise<void> {
     const fields = photoUploadFieldsSchema.parse({ ...target, caption: '' });
     const createdAt = new Date().toISOString();
-    const uploads: PhotoUploadRow[] = photos.map(({ id, file }) => ({
-      ...{ id, workshopId, blob: file, fileName: file.name || 'photo', fields, state: 'waiting' },
+    const uploads: PhotoUploadRow[] = photos.map(({ id, file, takenAt }) => ({
+      ...{
+        id,
+        workshopId,
+        blob: file,
+        fileName: file.name || 'photo',
+        fields: { ...fields, takenAt },
+        state: 'waiting',
+      },
       ...{ attempts: 0, lastError: null, bytesSent: 0, bytesTotal: file.size, createdAt },
     }));
     const records: LocalPhoto[] = photos.map(({ id, takenAt }) => ({

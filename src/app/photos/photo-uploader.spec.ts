@@ -49,8 +49,12 @@ describe('PhotoUploader', () => {
     await dropDatabase(db);
   });
 
-  async function queue(name: string, more: { stepId?: string; pourId?: string } = {}): Promise<PickedPhoto> {
-    const photo = picked(await pictureFile(name));
+  async function queue(
+    name: string,
+    more: { stepId?: string; pourId?: string } = {},
+    takenAt: string | null = null,
+  ): Promise<PickedPhoto> {
+    const photo = picked(await pictureFile(name), takenAt);
     await photos.add(WORKSHOP, { buildId, ...more }, [photo]);
     return photo;
   }
@@ -78,7 +82,7 @@ describe('PhotoUploader', () => {
   describe('when the server takes the photo', () => {
     it('should send its bytes and fields under its own id, with credentials, and drop the upload', async () => {
       const pourId = v7();
-      const photo = await queue('riverbed.jpg', { pourId });
+      const photo = await queue('riverbed.jpg', { pourId }, '2025-03-01T09:30:00.000Z');
 
       const sent = uploader.send(WORKSHOP);
       const upload = await nextUpload(photo.id);
@@ -90,11 +94,12 @@ describe('PhotoUploader', () => {
       expect(upload.request.reportProgress).toBeTrue();
       expect(file.name).toBe('riverbed.jpg');
       expect(new Uint8Array(await file.arrayBuffer())).toEqual(new Uint8Array(await photo.file.arrayBuffer()));
-      expect(['buildId', 'stepId', 'pourId', 'caption'].map((field) => body.get(field))).toEqual([
+      expect(['buildId', 'stepId', 'pourId', 'caption', 'takenAt'].map((field) => body.get(field))).toEqual([
         buildId,
         '',
         pourId,
         '',
+        '2025-03-01T09:30:00.000Z',
       ]);
       upload.flush(serverPhoto(WORKSHOP, photo.id, buildId, 7, { pourId }), { status: 201, statusText: 'Created' });
 

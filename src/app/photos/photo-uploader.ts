@@ -102,6 +102,7 @@ export class PhotoUploader {
     body.append('stepId', row.fields.stepId ?? '');
     body.append('pourId', row.fields.pourId ?? '');
     body.append('caption', row.fields.caption);
+    body.append('takenAt', row.fields.takenAt ?? '');
     body.append('photo', row.blob, row.fileName);
     const url = `/api/workshops/${row.workshopId}/photos/${row.id}`;
     const request = new HttpRequest('PUT', url, body, { reportProgress: true, withCredentials: true });

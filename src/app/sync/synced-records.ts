@@ -137,7 +137,8 @@ export interface PhotoUploadRow {
   workshopId: string;
   blob: Blob;
   fileName: string;
-  fields: { buildId: string; stepId: string | null; pourId: string | null; caption: string };
+  /** `takenAt`: the camera's time as this device read it, for a file whose time carries no zone. */
+  fields: { buildId: string; stepId: string | null; pourId: string | null; caption: string; takenAt?: string | null };
   state: PhotoUploadState;
   /** How many times sending began. */
   attempts: number;
