@@ -11,6 +11,7 @@ import {
 } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import { photoUrl, type PhotoSize } from '@benchtide/shared';
+import { Connectivity } from '../core/connectivity';
 import { PhotoIcons } from './photo-icons';
 
 /**
@@ -76,7 +77,15 @@ export class PhotoThumb {
   protected readonly src = computed(() =>
     this.hasBlob() ? this.objectUrl() : photoUrl(this.workshopId(), this.photoId(), this.size()),
   );
-  protected readonly failed = linkedSignal({ source: this.src, computation: () => false });
+  private readonly online = inject(Connectivity).online;
+  /** Tried again when the address changes or the connection comes back. */
+  protected readonly failed = linkedSignal<{ src: string | null; online: boolean }, boolean>({
+    source: () => ({ src: this.src(), online: this.online() }),
+    computation: (now, before) => {
+      const cameBack = before !== undefined && now.online && !before.source.online;
+      return before !== undefined && before.source.src === now.src && !cameBack ? before.value : false;
+    },
+  });
 
   constructor() {
     inject(PhotoIcons);
