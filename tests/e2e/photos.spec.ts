@@ -11,6 +11,7 @@ import { testServer, type TestServer } from '../support/test-app.js';
 import { startAppServer, type RunningApp } from './support/app-server.js';
 import { launchChromium, PHONE, screenshotPath } from './support/browser.js';
 import { waitUntilReadyOffline } from './support/offline.js';
+import { signIn, untilSynced } from './support/phone.js';
 
 /** Every file under a folder, however deep. */
 function filesUnder(folder: string): string[] {
@@ -53,25 +54,11 @@ describe('bench photos across two phones', () => {
     const context = await browser.newContext(PHONE);
     const page = await context.newPage();
     page.on('pageerror', (error) => pageErrors.push(`${name}: ${error.message}`));
-    await page.goto(`${app.origin}/sign-in`);
-    await page.getByLabel('E-mail').fill(account.email);
-    await page.getByLabel('Password', { exact: true }).fill(account.password);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
+    await signIn(page, app.origin, account);
     await page.evaluate((id) => localStorage.setItem('benchtide.current-workshop', id), workshopId);
     await waitUntilReadyOffline(page);
-    await untilSynced(page);
+    await untilSynced(page, app.origin);
     return { context, page };
-  }
-
-  async function untilSynced(page: Page): Promise<void> {
-    await page.goto(`${app.origin}/device`);
-    const syncNow = page.getByRole('button', { name: 'Sync now' });
-    await syncNow.waitFor();
-    await page.waitForFunction(() => !document.querySelector('mat-progress-bar'));
-    await syncNow.click();
-    await page.getByText('Everything changed on this device has reached the server.').waitFor({ timeout: 30_000 });
-    await page.waitForFunction(() => !document.querySelector('mat-progress-bar'), null, { timeout: 30_000 });
   }
 
   async function photosOnServer() {
@@ -102,13 +89,13 @@ describe('bench photos across two phones', () => {
     expect(await photosOnServer()).toEqual([]);
 
     await one.context.setOffline(false);
-    await untilSynced(one.page);
+    await untilSynced(one.page, app.origin);
     const deadline = Date.now() + 30_000;
     while ((await photosOnServer()).length === 0 && Date.now() < deadline) {
       await new Promise((resolve) => setTimeout(resolve, 250));
     }
     // A second round must not send it again.
-    await untilSynced(one.page);
+    await untilSynced(one.page, app.origin);
     const kept = await photosOnServer();
     expect(kept.length).toBe(1);
     // Exactly the two copies of that one photo: its display copy and its thumbnail.

@@ -5,6 +5,7 @@ import { testServer, type TestServer } from '../support/test-app.js';
 import { startAppServer, type RunningApp } from './support/app-server.js';
 import { launchChromium, PHONE, screenshotPath } from './support/browser.js';
 import { waitUntilReadyOffline } from './support/offline.js';
+import { signIn, untilSynced } from './support/phone.js';
 
 /** A pour's next layer comes due while the app is open on the phone: a banner and a notification. */
 describe('pour alerts in the open app', () => {
@@ -53,16 +54,10 @@ describe('pour alerts in the open app', () => {
     await context.grantPermissions(['notifications'], { origin: app.origin });
     const page = await context.newPage();
     page.on('pageerror', (error) => pageErrors.push(error.message));
-    await page.goto(`${app.origin}/sign-in`);
-    await page.getByLabel('E-mail').fill(builder.email);
-    await page.getByLabel('Password', { exact: true }).fill(builder.password);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
+    await signIn(page, app.origin, builder);
     await page.evaluate((id) => localStorage.setItem('benchtide.current-workshop', id), workshopId);
     await waitUntilReadyOffline(page);
-    await page.goto(`${app.origin}/device`);
-    await page.getByRole('button', { name: 'Sync now' }).click();
-    await page.getByText('Everything changed on this device has reached the server.').waitFor({ timeout: 30_000 });
+    await untilSynced(page, app.origin);
     await page.goto(app.origin);
     await page.getByRole('heading', { name: 'Ford at Carrow' }).first().waitFor();
 

@@ -7,6 +7,7 @@ import { testServer, type TestServer } from '../support/test-app.js';
 import { startAppServer, type RunningApp } from './support/app-server.js';
 import { launchChromium, PHONE, screenshotPath } from './support/browser.js';
 import { waitUntilReadyOffline } from './support/offline.js';
+import { signIn, untilSynced } from './support/phone.js';
 
 interface Phone {
   name: string;
@@ -49,36 +50,18 @@ describe('two phones logging pours offline', () => {
       const context = await browser.newContext(PHONE);
       const page = await context.newPage();
       page.on('pageerror', (error) => pageErrors.push(`${name}: ${error.message}`));
-      await signIn(page, account);
+      await signIn(page, app.origin, account);
       await waitUntilReadyOffline(page);
       phones.push({ name, account, context, page });
     }
     // Both phones hold the workshop's build and shelf before the connection goes.
-    for (const phone of phones) await untilSynced(phone.page);
+    for (const phone of phones) await untilSynced(phone.page, app.origin);
   }, 180_000);
 
   afterAll(async () => {
     await browser?.close();
     await app?.stop();
   });
-
-  async function signIn(page: Page, account: TestAccount): Promise<void> {
-    await page.goto(`${app.origin}/sign-in`);
-    await page.getByLabel('E-mail').fill(account.email);
-    await page.getByLabel('Password', { exact: true }).fill(account.password);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
-  }
-
-  async function untilSynced(page: Page): Promise<void> {
-    await page.goto(`${app.origin}/device`);
-    const syncNow = page.getByRole('button', { name: 'Sync now' });
-    await syncNow.waitFor();
-    await page.waitForFunction(() => !document.querySelector('mat-progress-bar'));
-    await syncNow.click();
-    await page.getByText('Everything changed on this device has reached the server.').waitFor({ timeout: 30_000 });
-    await page.waitForFunction(() => !document.querySelector('mat-progress-bar'), null, { timeout: 30_000 });
-  }
 
   async function logPour(page: Page, feature: string, lengthMm: string): Promise<void> {
     await page.goto(`${app.origin}/log-pour`);
@@ -150,8 +133,8 @@ describe('two phones logging pours offline', () => {
     app = await startAppServer({}, port);
     for (const phone of phones) await phone.context.setOffline(false);
     // Phone one may have pulled before phone two pushed: a second round brings everything to both.
-    for (const phone of phones) await untilSynced(phone.page);
-    for (const phone of phones) await untilSynced(phone.page);
+    for (const phone of phones) await untilSynced(phone.page, app.origin);
+    for (const phone of phones) await untilSynced(phone.page, app.origin);
 
     const onServer = await seed.ctx.db
       .select()

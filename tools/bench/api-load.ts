@@ -3,10 +3,9 @@
 // in the same run as the baseline. Prints p50/p95/p99 latency and requests per second per route.
 // Run with `npm run bench:api` (BENCH_SECONDS sets each route's duration, 10 by default). It uses a
 // database of its own, seeded afresh: one workshop, a build with 200 steps, 10 materials with 5
-// containers each, and a server process of its own without reminder workers.
+// containers each (the tests' invented data sheet), and a production server process of its own
+// without reminder workers.
 import autocannon from 'autocannon';
-import { spawn } from 'node:child_process';
-import { createServer } from 'node:net';
 import pg from 'pg';
 import { v7 } from 'uuid';
 import { createBuild, createStep } from '../../server/builds/build-service.js';
@@ -16,22 +15,11 @@ import { applyMigrations, openDatabase } from '../../server/db/database.js';
 import { users } from '../../server/db/schema/index.js';
 import { createContainer, createMaterial } from '../../server/shelf/shelf-service.js';
 import { createWorkshop } from '../../server/workshops/workshop-service.js';
+import { startAppServer } from '../../tests/e2e/support/app-server.js';
+import { TEST_DATA_SHEET } from '../../tests/support/shelf.js';
 
 const SECONDS = Number(process.env['BENCH_SECONDS'] ?? 10);
 const CONNECTIONS = 100;
-/** Invented for the benchmark: 1:1 by weight, times at 20 °C. */
-const DATA_SHEET = {
-  mixRatio: { basis: 'weight', partA: 1, partB: 1 },
-  densityAGPerMl: 1.1,
-  densityBGPerMl: 0.9,
-  potLifeMin: 30,
-  recoatMin: 240,
-  demouldMin: 1440,
-  fullCureMin: 4320,
-  referenceTempC: 20,
-  minCureTempC: 15,
-  maxLayerMm: 10,
-} as const;
 
 async function seed(url: string) {
   const database = openDatabase(url);
@@ -65,7 +53,7 @@ async function seed(url: string) {
       id: materialId,
       name: `Load resin ${m}`,
       kind: 'two-part-epoxy',
-      dataSheet: DATA_SHEET,
+      dataSheet: TEST_DATA_SHEET,
       safetySheet: '',
     } as never);
     for (let c = 0; c < 5; c += 1) {
@@ -86,15 +74,6 @@ async function seed(url: string) {
   return { workshopId, buildId, materialId, cookie: cookie.split(';')[0]! };
 }
 
-function freePort(): Promise<number> {
-  return new Promise((resolve) => {
-    const probe = createServer().listen(0, '127.0.0.1', () => {
-      const address = probe.address();
-      probe.close(() => resolve(typeof address === 'object' && address ? address.port : 0));
-    });
-  });
-}
-
 const url = new URL(process.env['DATABASE_URL'] ?? 'postgres://benchtide@127.0.0.1:54329/benchtide');
 const admin = new pg.Client({ connectionString: url.toString() });
 await admin.connect();
@@ -104,29 +83,8 @@ await admin.end();
 url.pathname = '/benchtide_bench_api';
 const seeded = await seed(url.toString());
 
-const port = await freePort();
-const origin = `http://127.0.0.1:${port}`;
-const server = spawn(process.execPath, ['--import', 'tsx', 'server/main.ts'], {
-  stdio: ['ignore', 'ignore', 'inherit'],
-  env: {
-    ...process.env,
-    NODE_ENV: 'production',
-    PORT: String(port),
-    PUBLIC_ORIGIN: origin,
-    DATABASE_URL: url.toString(),
-    LOG_LEVEL: 'silent',
-    REMINDER_JOBS: 'off',
-  },
-});
-for (let tries = 0; ; tries += 1) {
-  try {
-    if ((await fetch(`${origin}/api/health`)).ok) break;
-  } catch {
-    // not listening yet
-  }
-  if (tries > 150) throw new Error('The server did not answer /api/health within 30 s.');
-  await new Promise((resolve) => setTimeout(resolve, 200));
-}
+const app = await startAppServer({ DATABASE_URL: url.toString(), LOG_LEVEL: 'silent', REMINDER_JOBS: 'off' });
+const { origin } = app;
 
 const w = `/api/workshops/${seeded.workshopId}`;
 const headers = { cookie: seeded.cookie, origin, 'content-type': 'application/json' };
@@ -185,7 +143,7 @@ try {
     });
   }
 } finally {
-  server.kill('SIGTERM');
+  await app.stop();
 }
 
 /** autocannon reports p90 and p97.5; p95 lies between them, taken here by straight-line interpolation. */
