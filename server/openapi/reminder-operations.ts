@@ -34,7 +34,7 @@ export const REMINDER_ROUTES: readonly ApiRoute[] = [
     success: {
       status: 200,
       description:
-        '`{ preferences, devices }`: which reminders, by which channels, quiet hours and time zone (the defaults until saved), and each subscribed device by name.',
+        '`{ preferences, saved, devices }`: which reminders, by which channels, quiet hours and time zone (the defaults, with `saved: false`, until the member chooses), and each subscribed device by name.',
     },
   },
   {

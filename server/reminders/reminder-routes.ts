@@ -19,14 +19,15 @@ export function reminderRoutes(ctx: ServerContext): Router {
 
   router.get('/account/reminders', async (_req, res) => {
     const userId = signedIn(res).user.id;
-    res.set('Cache-Control', 'no-store').json({
-      preferences: await preferencesOf(ctx, userId),
-      devices: await devicesOf(ctx, userId),
-    });
+    res
+      .set('Cache-Control', 'no-store')
+      .json({ ...(await preferencesOf(ctx, userId)), devices: await devicesOf(ctx, userId) });
   });
 
   router.put('/account/reminders', async (req, res) => {
-    res.json(await savePreferences(ctx, signedIn(res).user.id, validate(reminderPreferencesSchema, req.body)));
+    res.json(
+      (await savePreferences(ctx, signedIn(res).user.id, validate(reminderPreferencesSchema, req.body))).preferences,
+    );
   });
 
   router.post('/account/push-subscriptions', async (req, res) => {

@@ -10,16 +10,20 @@ import { AppError } from '../core/app-error.js';
 import { pushSubscriptions, reminderPreferences } from '../db/schema/reminders.js';
 import { preferencesFrom } from './reminder-recipients.js';
 
-export async function preferencesOf(ctx: ServerContext, userId: string): Promise<ReminderPreferences> {
+/** The member's choices, or the defaults (`saved: false`) until they make some. */
+export async function preferencesOf(
+  ctx: ServerContext,
+  userId: string,
+): Promise<{ preferences: ReminderPreferences; saved: boolean }> {
   const [row] = await ctx.db.select().from(reminderPreferences).where(eq(reminderPreferences.userId, userId));
-  return preferencesFrom(row ?? null);
+  return { preferences: preferencesFrom(row ?? null), saved: row !== undefined };
 }
 
 export async function savePreferences(
   ctx: ServerContext,
   userId: string,
   input: z.output<typeof reminderPreferencesSchema>,
-): Promise<ReminderPreferences> {
+): Promise<{ preferences: ReminderPreferences; saved: boolean }> {
   const values = {
     kinds: input.kinds,
     channels: input.channels,

@@ -18,6 +18,7 @@ describe('reminder settings routes', () => {
       quietHours: { from: '22:00', until: '07:00' },
       timeZone: 'UTC',
     });
+    expect(first.body.saved).toBeFalse();
     const chosen = {
       kinds: ['full-cure'],
       channels: ['email', 'push'],
@@ -27,6 +28,7 @@ describe('reminder settings routes', () => {
     await request(server.app).put('/api/account/reminders').set('Cookie', account.cookie).send(chosen).expect(200);
     const after = await request(server.app).get('/api/account/reminders').set('Cookie', account.cookie).expect(200);
     expect(after.body.preferences).toEqual(chosen);
+    expect(after.body.saved).toBeTrue();
   });
 
   it('should refuse a bad time and an unknown zone with field messages, keeping what was saved', async () => {

@@ -48,7 +48,9 @@ describe('AccountPage', () => {
     fixture = TestBed.createComponent(AccountPage);
     loader = TestbedHarnessEnvironment.loader(fixture);
     fixture.detectChanges();
-    http.expectOne('/api/account/reminders').flush({ preferences: defaultReminderPreferences('UTC'), devices: [] });
+    http
+      .expectOne('/api/account/reminders')
+      .flush({ preferences: defaultReminderPreferences('UTC'), saved: false, devices: [] });
     await fixture.whenStable();
   });
   afterEach(() => {

@@ -11,6 +11,8 @@ export interface PushDevice {
 
 export interface ReminderSettingsView {
   readonly preferences: ReminderPreferences;
+  /** False while the member has not chosen: the preferences are the server's defaults. */
+  readonly saved: boolean;
   readonly devices: readonly PushDevice[];
 }
 

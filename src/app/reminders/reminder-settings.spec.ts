@@ -48,7 +48,7 @@ describe('ReminderSettings', () => {
   }
 
   it('should show the member’s saved choices', async () => {
-    await open(() => http.expectOne('/api/account/reminders').flush({ preferences: SAVED, devices: [] }));
+    await open(() => http.expectOne('/api/account/reminders').flush({ preferences: SAVED, saved: true, devices: [] }));
     const checked = async (label: string) => (await loader.getHarness(MatCheckboxHarness.with({ label }))).isChecked();
     expect(await checked('The next layer of a pour can go on')).toBeTrue();
     expect(await checked('A pour can be demoulded')).toBeFalse();
@@ -61,7 +61,7 @@ describe('ReminderSettings', () => {
   });
 
   it('should save what the member ticks, with quiet hours off', async () => {
-    await open(() => http.expectOne('/api/account/reminders').flush({ preferences: SAVED, devices: [] }));
+    await open(() => http.expectOne('/api/account/reminders').flush({ preferences: SAVED, saved: true, devices: [] }));
     await (await loader.getHarness(MatCheckboxHarness.with({ label: 'A pour can be demoulded' }))).check();
     await (await loader.getHarness(MatSlideToggleHarness.with({ label: 'Hold reminders overnight' }))).uncheck();
     await (await loader.getHarness(MatButtonHarness.with({ text: 'Save reminders' }))).click();
@@ -78,7 +78,7 @@ describe('ReminderSettings', () => {
   });
 
   it('should refuse an unknown time zone in plain words, without sending', async () => {
-    await open(() => http.expectOne('/api/account/reminders').flush({ preferences: SAVED, devices: [] }));
+    await open(() => http.expectOne('/api/account/reminders').flush({ preferences: SAVED, saved: true, devices: [] }));
     const component = fixture.componentInstance as unknown as {
       form: { controls: { timeZone: { setValue(v: string): void } } };
     };
@@ -87,6 +87,16 @@ describe('ReminderSettings', () => {
     await settle();
     http.expectNone('/api/account/reminders');
     expect(fixture.nativeElement.textContent).toContain('Choose a time zone from the list');
+  });
+
+  it('should count quiet hours in this device’s time zone until the member has chosen', async () => {
+    await open(() =>
+      http
+        .expectOne('/api/account/reminders')
+        .flush({ preferences: { ...SAVED, timeZone: 'Pacific/Chatham' }, saved: false, devices: [] }),
+    );
+    const component = fixture.componentInstance as unknown as { form: { controls: { timeZone: { value: string } } } };
+    expect(component.form.controls.timeZone.value).toBe(Intl.DateTimeFormat().resolvedOptions().timeZone);
   });
 
   it('should say settings need a connection when they cannot be loaded', async () => {

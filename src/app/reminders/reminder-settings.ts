@@ -67,7 +67,7 @@ export class ReminderSettings implements OnInit {
     quiet: true,
     quietFrom: '22:00',
     quietUntil: '07:00',
-    timeZone: Intl.DateTimeFormat().resolvedOptions().timeZone,
+    timeZone: browserTimeZone(),
   });
   protected readonly submission = new Submission(this.form);
   protected readonly pushing = new Submission();
@@ -75,6 +75,7 @@ export class ReminderSettings implements OnInit {
   protected readonly loaded = signal(false);
   protected readonly loadFailed = signal(false);
   protected readonly saved = signal(false);
+  private readonly choicesSaved = signal(false);
   protected readonly devices = signal<readonly PushDevice[]>([]);
   protected readonly thisDeviceOn = computed(() => {
     const endpoint = this.push.endpoint();
@@ -84,7 +85,9 @@ export class ReminderSettings implements OnInit {
   async ngOnInit(): Promise<void> {
     try {
       const view = await this.api.load();
-      this.show(view.preferences);
+      // Until the member chooses, their quiet hours count on this device's clock, not the server's default zone.
+      this.show(view.saved ? view.preferences : { ...view.preferences, timeZone: browserTimeZone() });
+      this.choicesSaved.set(view.saved);
       this.devices.set(view.devices);
       this.loaded.set(true);
     } catch {
@@ -98,11 +101,19 @@ export class ReminderSettings implements OnInit {
       this.show(await this.api.save(request)),
     );
     this.saved.set(sent);
+    if (sent) this.choicesSaved.set(true);
   }
 
   protected async turnOnHere(): Promise<void> {
-    const done = await this.pushing.send(() => this.push.turnOn(deviceLabel()));
-    if (done) await this.reloadDevices();
+    const done = await this.pushing.send(async () => {
+      await this.push.turnOn(deviceLabel());
+      // Reminders are about to arrive here: keep the choices shown (this device's zone) if none were saved.
+      if (!this.choicesSaved()) this.show(await this.api.save(this.preferences()));
+    });
+    if (done) {
+      this.choicesSaved.set(true);
+      await this.reloadDevices();
+    }
   }
 
   protected async turnOffHere(): Promise<void> {
@@ -142,10 +153,14 @@ export class ReminderSettings implements OnInit {
   }
 }
 
+function browserTimeZone(): string {
+  return Intl.DateTimeFormat().resolvedOptions().timeZone;
+}
+
 function supportedTimeZones(): string[] {
   const withValues = Intl as typeof Intl & { supportedValuesOf?: (key: 'timeZone') => string[] };
   const zones = withValues.supportedValuesOf?.('timeZone') ?? [];
-  const here = Intl.DateTimeFormat().resolvedOptions().timeZone;
+  const here = browserTimeZone();
   return [...new Set(['UTC', here, ...zones])].sort();
 }
 
