@@ -19,6 +19,10 @@ const positive = (label: string, unit: string) =>
   z
     .number({ error: `${label} must be a number` })
     .gt(0, { error: `${label} must be more than 0${unit ? ` ${unit}` : ''}` });
+// The stock book keeps amounts exact to a thousandth in a column that holds less than 10^11.
+export const MAX_STOCK_AMOUNT = 1_000_000_000;
+const stockAmount = (schema: z.ZodNumber, label: string) =>
+  schema.max(MAX_STOCK_AMOUNT, { error: `${label} must be at most ${MAX_STOCK_AMOUNT.toLocaleString('en')}` });
 const instant = (label: string) => z.iso.datetime({ offset: true, error: `${label} must be a date and time` });
 const day = (label: string) => z.iso.date({ error: `${label} must be a date (YYYY-MM-DD)` });
 
@@ -81,7 +85,7 @@ export const materialPatchSchema = z.object(materialFields).partial();
 const containerFields = {
   materialId: id('Material'),
   part: z.enum(CONTAINER_PARTS, { error: 'Part must be A, B or single' }),
-  sizeQty: positive('Size', ''),
+  sizeQty: stockAmount(positive('Size', ''), 'Size'),
   unit: z.enum(STOCK_UNITS, { error: 'Unit must be g or mL' }),
   priceMinor: z.int({ error: 'Price must be a whole number of cents' }).min(0, { error: 'Price must be 0 or more' }),
   currency: z.string().regex(/^[A-Z]{3}$/, { error: 'Currency must be a three-letter code such as EUR' }),
@@ -102,14 +106,15 @@ export const containerPatchSchema = z
 
 export const wasteSchema = z.object({
   id: id('Entry'),
-  quantity: positive('Amount', ''),
+  quantity: stockAmount(positive('Amount', ''), 'Amount'),
   note: text('Note', 500).default(''),
 });
 export const stocktakeSchema = z.object({
   id: id('Entry'),
-  countedQty: z
-    .number({ error: 'Counted amount must be a number' })
-    .min(0, { error: 'Counted amount must be 0 or more' }),
+  countedQty: stockAmount(
+    z.number({ error: 'Counted amount must be a number' }).min(0, { error: 'Counted amount must be 0 or more' }),
+    'Counted amount',
+  ),
 });
 
 export const newPourSchema = z.object({
