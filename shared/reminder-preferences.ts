@@ -86,12 +86,24 @@ export function afterQuietHours(dueAtMs: number, quietHours: QuietHours | null, 
 /** What a browser's PushManager.subscribe() gives, as JSON, plus a name for the device. */
 export const pushSubscriptionSchema = z.object({
   endpoint: z.url({ protocol: /^https?$/, error: 'The push address must be a web address' }).max(2000),
+  // RFC 8291: the browser's P-256 public key, uncompressed (65 bytes), and a 16-byte secret, both base64url.
   keys: z.object({
-    p256dh: z.base64url({ error: 'The browser key is not in the expected form' }).max(200),
-    auth: z.base64url({ error: 'The browser secret is not in the expected form' }).max(100),
+    p256dh: z
+      .base64url({ error: 'The browser key is not in the expected form' })
+      .refine((key) => base64urlBytes(key) === 65 && key.startsWith('B'), {
+        error: 'The browser key is not in the expected form',
+      }),
+    auth: z
+      .base64url({ error: 'The browser secret is not in the expected form' })
+      .refine((secret) => base64urlBytes(secret) === 16, { error: 'The browser secret is not in the expected form' }),
   }),
   label: z.string().trim().max(80, { error: 'Device name must be at most 80 characters' }).default(''),
 });
 export type PushSubscriptionInput = z.input<typeof pushSubscriptionSchema>;
+
+/** How many bytes a base64url text (without padding) stands for. */
+function base64urlBytes(text: string): number {
+  return Math.floor((text.replace(/=+$/, '').length * 3) / 4);
+}
 
 export const pushUnsubscribeSchema = z.object({ endpoint: z.string().max(2000) });

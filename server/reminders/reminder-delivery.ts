@@ -7,7 +7,7 @@ import { pushSubscriptions, reminderDeliveries, reminders } from '../db/schema/r
 import { users } from '../db/schema/users.js';
 import { reminderMessage } from '../mail/messages.js';
 import type { Transaction } from '../records/change-stamp.js';
-import { notificationPayload, sendPush, type ReminderMessage } from './push-sender.js';
+import { notificationPayload, sendPush, type PushOutcome, type ReminderMessage } from './push-sender.js';
 import { recipientsOf, type Recipient } from './reminder-recipients.js';
 import type { VapidKeys } from './vapid-keys.js';
 
@@ -101,10 +101,17 @@ export async function sendDueDeliveries(ctx: ServerContext, now: Date, sending: 
         .limit(BATCH)
         .for('update', { of: reminderDeliveries, skipLocked: true });
       for (const { delivery, email } of batch) {
-        const error =
-          delivery.channel === 'email'
-            ? await sendEmail(ctx, email, delivery.message)
-            : await pushToEveryDevice(tx, delivery.userId, delivery.subject, delivery.message, sending);
+        let error: string | null;
+        try {
+          error =
+            delivery.channel === 'email'
+              ? await sendEmail(ctx, email, delivery.message)
+              : await pushToEveryDevice(tx, delivery.userId, delivery.subject, delivery.message, sending);
+        } catch (fault) {
+          // One delivery that cannot even be attempted must not stop the others.
+          ctx.log.error({ err: fault, subject: delivery.subject }, 'a reminder could not be sent');
+          error = `it could not be sent (${(fault as Error).message})`;
+        }
         const attempts = delivery.attempts + 1;
         const retryIn = RETRY_AFTER_MIN[attempts - 1];
         await tx
@@ -153,7 +160,10 @@ async function pushToEveryDevice(
   const errors: string[] = [];
   let delivered = false;
   for (const target of targets) {
-    const outcome = await sendPush(target, payload, sending.vapid, sending.vapidSubject);
+    const outcome = await sendPush(target, payload, sending.vapid, sending.vapidSubject).catch(
+      // web-push refuses to encrypt for a key it cannot use: that browser can never be reached.
+      (): PushOutcome => ({ status: 'gone' }),
+    );
     if (outcome.status === 'sent') delivered = true;
     else if (outcome.status === 'gone') await tx.delete(pushSubscriptions).where(eq(pushSubscriptions.id, target.id));
     else errors.push(outcome.error);

@@ -1,4 +1,5 @@
 import request from 'supertest';
+import { browserKeys } from '../support/fake-push-service.js';
 import type { Role } from '../../shared/account-schemas.js';
 import { invite } from '../../server/workshops/invitation-service.js';
 import { issueToken } from '../../server/auth/tokens.js';
@@ -137,7 +138,7 @@ const MATRIX: readonly Row[] = [
     path: () => '/api/account/push-subscriptions',
     body: () => ({
       endpoint: `https://push.invalid/${v7()}`,
-      keys: { p256dh: 'BPxq3Jm0Jd8', auth: 'c2VjcmV0' },
+      keys: browserKeys(),
       label: 'Phone',
     }),
     expected: signedInOnly(204),

@@ -1,4 +1,5 @@
 import { sql } from 'drizzle-orm';
+import { browserKeys } from '../support/fake-push-service.js';
 import fc from 'fast-check';
 import { createServer, type Server } from 'node:http';
 import request from 'supertest';
@@ -129,7 +130,7 @@ function validBody(
     },
     PushSubscription: {
       endpoint: 'https://push.benchtide.test/sub/1',
-      keys: { p256dh: 'BPwzj8Aq', auth: 'c2VjcmV0' },
+      keys: browserKeys(),
       label: 'Phone',
     },
     PushUnsubscribe: { endpoint: 'https://push.benchtide.test/sub/1' },

@@ -1,4 +1,5 @@
 import request from 'supertest';
+import { browserKeys } from '../support/fake-push-service.js';
 import { makeAccount } from '../support/accounts.js';
 import { testServer, type TestServer } from '../support/test-app.js';
 
@@ -45,11 +46,7 @@ describe('reminder settings routes', () => {
 
   it('should keep a push address once, list it without its keys, and forget it', async () => {
     const account = await makeAccount(server.ctx, 'Nuala');
-    const subscription = {
-      endpoint: 'https://push.invalid/nuala-phone',
-      keys: { p256dh: 'BPxq3Jm0Jd8', auth: 'c2VjcmV0' },
-      label: 'Phone',
-    };
+    const subscription = { endpoint: 'https://push.invalid/nuala-phone', keys: browserKeys(), label: 'Phone' };
     for (let i = 0; i < 2; i += 1) {
       await request(server.app)
         .post('/api/account/push-subscriptions')
@@ -59,7 +56,7 @@ describe('reminder settings routes', () => {
     }
     const listed = await request(server.app).get('/api/account/reminders').set('Cookie', account.cookie).expect(200);
     expect(listed.body.devices.map((d: { label: string }) => d.label)).toEqual(['Phone']);
-    expect(JSON.stringify(listed.body)).not.toContain('c2VjcmV0');
+    expect(JSON.stringify(listed.body)).not.toContain(subscription.keys.auth);
     await request(server.app)
       .delete('/api/account/push-subscriptions')
       .set('Cookie', account.cookie)
@@ -75,7 +72,7 @@ describe('reminder settings routes', () => {
     const answer = await request(production.app)
       .post('/api/account/push-subscriptions')
       .set('Cookie', account.cookie)
-      .send({ endpoint: 'http://127.0.0.1:9/push', keys: { p256dh: 'BPxq3Jm0Jd8', auth: 'c2VjcmV0' } })
+      .send({ endpoint: 'http://127.0.0.1:9/push', keys: browserKeys() })
       .expect(422);
     expect(answer.body.error.message).toBe('Push addresses must use https.');
   });
@@ -85,5 +82,15 @@ describe('reminder settings routes', () => {
     const two = await request(server.app).get('/api/reminders/push-key').expect(200);
     expect(one.body.publicKey).toMatch(/^[A-Za-z0-9_-]{87}$/);
     expect(two.body.publicKey).toBe(one.body.publicKey);
+  });
+
+  it('should refuse keys no browser would send, which could never be encrypted for', async () => {
+    const account = await makeAccount(server.ctx, 'Ronan');
+    const answer = await request(server.app)
+      .post('/api/account/push-subscriptions')
+      .set('Cookie', account.cookie)
+      .send({ endpoint: 'https://push.invalid/short', keys: { p256dh: 'BPxq3Jm0Jd8', auth: 'c2VjcmV0' } })
+      .expect(400);
+    expect(JSON.stringify(answer.body)).toContain('The browser key is not in the expected form');
   });
 });

@@ -223,6 +223,32 @@ describe('cure reminders', () => {
   );
 
   it(
+    'should reach a good browser and forget one whose keys cannot be used, without stopping',
+    async () => {
+      await choose(builder, ['push'], null);
+      await subscribe(server.ctx, builder.id, { ...push.subscribe('good-phone'), label: '' });
+      // Kept before keys were checked on the way in: web-push cannot encrypt for it.
+      await server.ctx.db
+        .insert(pushSubscriptions)
+        .values({
+          userId: builder.id,
+          endpoint: `${push.origin}/push/broken`,
+          p256dh: 'BPxq3Jm0Jd8',
+          auth: 'c2VjcmV0',
+        });
+      await logPour('Broken key pool');
+      server.clock.advanceMinutes(241);
+      await tick();
+      expect(push.received.filter((p) => p.payload.includes('Broken key pool')).map((p) => p.device)).toEqual([
+        'good-phone',
+      ]);
+      const left = await server.ctx.db.select().from(pushSubscriptions).where(eq(pushSubscriptions.userId, builder.id));
+      expect(left.map((row) => row.endpoint)).toEqual([`${push.origin}/push/good-phone`]);
+    },
+    SWEEP_MS,
+  );
+
+  it(
     'should forget a browser that unsubscribed (410)',
     async () => {
       await choose(builder, ['push'], null);

@@ -143,3 +143,10 @@ export async function startFakePushService(): Promise<FakePushService> {
     close: () => new Promise<void>((resolve) => server.close(() => resolve())),
   };
 }
+
+/** Keys a browser would send with a subscription (a fresh P-256 key pair's public half and a 16-byte secret). */
+export function browserKeys(): PushSubscriptionJson['keys'] {
+  const ecdh = createECDH('prime256v1');
+  ecdh.generateKeys();
+  return { p256dh: ecdh.getPublicKey().toString('base64url'), auth: randomBytes(16).toString('base64url') };
+}
