@@ -8,7 +8,12 @@ import {
 } from '../../server/reminders/reminder-jobs.js';
 import { queueShelfDigests } from '../../server/reminders/shelf-digest.js';
 import { subscribe } from '../../server/reminders/reminder-settings.js';
-import { fanOutDueReminders, sendDueDeliveries, type Sending } from '../../server/reminders/reminder-delivery.js';
+import {
+  FAN_OUT_BATCH,
+  fanOutDueReminders,
+  sendDueDeliveries,
+  type Sending,
+} from '../../server/reminders/reminder-delivery.js';
 import { addMember, makeAccount, makeWorkshop, type TestAccount } from '../support/accounts.js';
 import { startFakePushService, type FakePushService } from '../support/fake-push-service.js';
 import { addBuild, addContainer, addMaterial, api, pourBody, type Api } from '../support/shelf.js';
@@ -228,14 +233,12 @@ describe('cure reminders', () => {
       await choose(builder, ['push'], null);
       await subscribe(server.ctx, builder.id, { ...push.subscribe('good-phone'), label: '' });
       // Kept before keys were checked on the way in: web-push cannot encrypt for it.
-      await server.ctx.db
-        .insert(pushSubscriptions)
-        .values({
-          userId: builder.id,
-          endpoint: `${push.origin}/push/broken`,
-          p256dh: 'BPxq3Jm0Jd8',
-          auth: 'c2VjcmV0',
-        });
+      await server.ctx.db.insert(pushSubscriptions).values({
+        userId: builder.id,
+        endpoint: `${push.origin}/push/broken`,
+        p256dh: 'BPxq3Jm0Jd8',
+        auth: 'c2VjcmV0',
+      });
       await logPour('Broken key pool');
       server.clock.advanceMinutes(241);
       await tick();
@@ -274,7 +277,7 @@ describe('cure reminders', () => {
     // Everything is due and made out; then three workers, one of them in a second API process
     // (its own pool of connections to the same database), send at the same moment.
     const now = server.clock.now();
-    await fanOutDueReminders(server.ctx, now);
+    while ((await fanOutDueReminders(server.ctx, now)) === FAN_OUT_BATCH);
     const other = openDatabase(TEST_DATABASE_URL);
     try {
       const counts = await Promise.all([
