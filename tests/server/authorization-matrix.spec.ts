@@ -12,6 +12,7 @@ import {
   type TestAccount,
 } from '../support/accounts.js';
 import { listRoutes } from '../support/routes.js';
+import { ACCESS_EXTENSION, openApiDocument, type OperationAccess } from '../../server/openapi/openapi-document.js';
 import { testServer, type TestServer } from '../support/test-app.js';
 import { linkIn } from '../../server/mail/mail-sink.js';
 import { v7 } from 'uuid';
@@ -415,6 +416,21 @@ const MATRIX: readonly Row[] = [
   },
 ];
 
+const HTTP_METHODS = new Set(['get', 'put', 'post', 'delete', 'options', 'head', 'patch', 'trace']);
+
+/** Each operation of the API document as "METHOD /path" in Express's form, with who it says may call. */
+function documentedRoutes(): Map<string, OperationAccess> {
+  const routes = new Map<string, OperationAccess>();
+  for (const [path, item] of Object.entries(openApiDocument().paths)) {
+    for (const [method, operation] of Object.entries(item as Record<string, Record<string, unknown>>)) {
+      if (!HTTP_METHODS.has(method)) continue;
+      const route = `${method.toUpperCase()} ${path.replace(/\{(\w+)\}/g, ':$1')}`;
+      routes.set(route, operation[ACCESS_EXTENSION] as OperationAccess);
+    }
+  }
+  return routes;
+}
+
 describe('the authorisation matrix', () => {
   let server: TestServer;
 
@@ -460,6 +476,30 @@ describe('the authorisation matrix', () => {
     const apiRoutes = listRoutes(server.app).filter((route) => route.includes(' /api/'));
     expect(apiRoutes.filter((route) => !MATRIX.some((row) => row.route === route))).toEqual([]);
     expect(MATRIX.filter((row) => !apiRoutes.includes(row.route)).map((row) => row.route)).toEqual([]);
+  });
+
+  it('should cover every route the API document describes, and no route it leaves out', () => {
+    const documented = [...documentedRoutes().keys()];
+
+    expect(documented.filter((route) => !MATRIX.some((row) => row.route === route))).toEqual([]);
+    expect(MATRIX.filter((row) => !documented.includes(row.route)).map((row) => row.route)).toEqual([]);
+  });
+
+  it('should expect of each route what the API document tells callers about it', () => {
+    const documented = documentedRoutes();
+    const disagreements: string[] = [];
+    for (const row of MATRIX) {
+      const access = documented.get(row.route);
+      if (!access) continue;
+      if (access.signInNeeded && row.expected.anonymous !== 401) disagreements.push(`${row.route}: anonymous`);
+      if (!access.roles) continue;
+      for (const role of ['viewer', 'builder', 'owner'] as const) {
+        if (access.roles.includes(role) === (row.expected[role] === 403)) disagreements.push(`${row.route}: ${role}`);
+      }
+      if (row.expected.outsider !== 404) disagreements.push(`${row.route}: outsider`);
+    }
+
+    expect(disagreements).toEqual([]);
   });
 
   for (const row of MATRIX) {
