@@ -3,6 +3,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import request from 'supertest';
 import { v7 } from 'uuid';
+import { readConfig } from '../../server/config.js';
 import { makeAccount, makeWorkshop } from '../support/accounts.js';
 import { benchJpeg, uploadPhoto } from '../support/photos.js';
 import { addBuild, api } from '../support/shelf.js';
@@ -83,7 +84,8 @@ describe('security headers', () => {
     });
 
     it('should hold browsers to HTTPS for a year in production, and upgrade requests behind a proxy that ends TLS', async () => {
-      for (const [which, response] of Object.entries(await answers({ production: true, trustProxy: true }))) {
+      const { production, trustProxy } = readConfig({ NODE_ENV: 'production', TRUST_PROXY: '1' });
+      for (const [which, response] of Object.entries(await answers({ production, trustProxy }))) {
         const hsts = response.headers['strict-transport-security'] as string | undefined;
         expect(hsts)
           .withContext(which)
