@@ -48,7 +48,7 @@ export function createApp(ctx: ServerContext): Express {
           'worker-src': ["'self'"],
           'manifest-src': ["'self'"],
           'connect-src': ["'self'"],
-          'upgrade-insecure-requests': config.production && config.trustProxy ? [] : null,
+          'upgrade-insecure-requests': config.production && config.trustProxy > 0 ? [] : null,
         },
       },
       strictTransportSecurity: config.production,

@@ -8,7 +8,12 @@ export interface ServerConfig {
   logLevel: string;
   /** Folder of the production build of the app; the API runs without it. */
   appDir: string;
-  trustProxy: boolean;
+  /**
+   * How many proxies in front of the server to believe about the client's address and protocol:
+   * 0 for none, 1 for one load balancer. Only the addresses those proxies added are believed, so a
+   * client cannot pick its own address (and its own sign-in limit) by sending X-Forwarded-For.
+   */
+  trustProxy: number;
   /** The address people reach the app at; links in e-mails point there. */
   publicOrigin: string;
   /** Session cookies are Secure when the app is served over HTTPS. */
@@ -46,13 +51,20 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
     production: env['NODE_ENV'] === 'production',
     logLevel: env['LOG_LEVEL'] ?? 'info',
     appDir: resolve(env['BENCHTIDE_APP_DIR'] ?? 'dist/benchtide/browser'),
-    trustProxy: env['TRUST_PROXY'] === '1',
+    trustProxy: readTrustProxy(env['TRUST_PROXY']),
     publicOrigin: (env['PUBLIC_ORIGIN'] ?? `http://${env['HOST'] ?? '127.0.0.1'}:${port}`).replace(/\/$/, ''),
     secureCookies: (env['PUBLIC_ORIGIN'] ?? '').startsWith('https://'),
     smtpUrl: env['SMTP_URL'] ?? 'smtp://127.0.0.1:2525',
     mailFrom: env['MAIL_FROM'] ?? 'Benchtide <no-reply@benchtide.test>',
     photoStore: readPhotoStore(env),
   };
+}
+
+function readTrustProxy(value = ''): number {
+  if (!/^\d*$/.test(value)) {
+    throw new Error(`TRUST_PROXY must be the number of proxies in front of the server, such as 1, not "${value}"`);
+  }
+  return Number(value || 0);
 }
 
 function readPhotoStore(env: NodeJS.ProcessEnv): PhotoStoreConfig {
