@@ -1,5 +1,6 @@
 // `npm run audit:production`: asks npm's advisory service about the packages a production install
 // holds, and fails on any high or critical advisory that tools/audit-explained.json does not explain.
+// An explanation there reads { "advisory": "GHSA-…", "package": "name", "reason": "one line on why it cannot reach us" }.
 // Exit codes: 0 clean, 1 advisories to deal with, 2 not checked (the service could not be asked).
 // Only Node built-ins here, so it runs wherever npm does.
 import { spawn } from 'node:child_process';
