@@ -19,6 +19,7 @@ const SUITES = [
     args: ['node_modules/typescript/bin/tsc', '-p', 'tsconfig.e2e.json', '--noEmit'],
   },
   { name: 'shared and server specs', args: [...JASMINE, '--config=tests/jasmine.json'], counted: true },
+  { name: 'chaos sync', args: [...JASMINE, '--config=tests/chaos/jasmine.json'], counted: true },
   { name: 'app specs (karma)', args: [NG, 'test', '--watch=false', '--no-progress'], counted: true },
   { name: 'production build', args: [NG, 'build'] },
   { name: 'end-to-end specs', args: [...JASMINE, '--config=tests/e2e/jasmine.json'], counted: true, needsBuild: true },

@@ -45,8 +45,32 @@ export const errorHandler: ErrorRequestHandler = (error: unknown, req, res, next
     res.status(status).json({ error: { code, message } });
     return;
   }
+  if (databaseUnavailable(error)) {
+    req.log?.warn({ err: error }, 'database unavailable');
+    res.setHeader('Retry-After', '5');
+    res.status(503).json({
+      error: {
+        code: 'database_unavailable',
+        message: 'The server cannot reach its database for a moment. Nothing was saved; try again shortly.',
+      },
+    });
+    return;
+  }
   req.log?.error({ err: error }, 'unhandled error');
   res
     .status(500)
     .json({ error: { code: 'internal', message: 'Something went wrong on the server. Nothing was saved.' } });
 };
+
+/** PostgreSQL shutting down or restarting (SQLSTATE classes 57P and 08), or no connection to be had. */
+function databaseUnavailable(error: unknown): boolean {
+  for (let cause = error, depth = 0; cause instanceof Error && depth < 5; depth += 1) {
+    const code = (cause as { code?: unknown }).code;
+    if (typeof code === 'string' && (/^57P0[123]$/.test(code) || code.startsWith('08') || code === 'ECONNREFUSED')) {
+      return true;
+    }
+    if (/Connection terminated|timeout exceeded when trying to connect/.test(cause.message)) return true;
+    cause = cause.cause;
+  }
+  return false;
+}

@@ -13,8 +13,11 @@ export interface DatabaseHandle {
 
 export function openDatabase(url: string): DatabaseHandle {
   const pool = new pg.Pool({ connectionString: url, max: 10, connectionTimeoutMillis: 5000 });
-  // An idle client losing its connection (a database restart) must not crash the process.
+  // A client losing its connection (a database restart) must not crash the process: idle ones
+  // report on the pool, and one checked out between queries (inside a transaction) reports on
+  // itself. Its query fails, the request answers 503, and the pool opens a new connection.
   pool.on('error', () => undefined);
+  pool.on('connect', (client) => client.on('error', () => undefined));
   return { pool, db: drizzle(pool, { schema }) };
 }
 

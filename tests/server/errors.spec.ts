@@ -1,4 +1,5 @@
 import request from 'supertest';
+import { openDatabase } from '../../server/db/database.js';
 import { testApp } from '../support/test-app.js';
 
 describe('API errors', () => {
@@ -34,6 +35,22 @@ describe('API errors', () => {
 
     expect(response.status).toBe(413);
     expect(response.body.error.code).toBe('body_too_large');
+  });
+
+  it('should answer 503 with a retry hint, not 500, while the database cannot be reached', async () => {
+    // Port 9 (discard) on loopback: nothing listens, so every connection is refused.
+    const unreachable = openDatabase('postgres://benchtide@127.0.0.1:9/benchtide');
+    const app = await testApp({}, unreachable);
+
+    const response = await request(app)
+      .post('/api/auth/sign-in')
+      .send({ email: 'nobody@benchtide.test', password: 'whatever it is' });
+    await unreachable.pool.end();
+
+    expect(response.status).toBe(503);
+    expect(response.headers['retry-after']).toBe('5');
+    expect(response.body.error.code).toBe('database_unavailable');
+    expect(JSON.stringify(response.body)).not.toMatch(/ECONNREFUSED|127\.0\.0\.1|at .+\.(ts|js):\d+/);
   });
 
   it('should set security headers from helmet on every response', async () => {

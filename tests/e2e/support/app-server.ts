@@ -5,7 +5,10 @@ import { TEST_DATABASE_URL } from '../../support/test-database.js';
 export interface RunningApp {
   origin: string;
   port: number;
+  /** Ends the process as a deploy would: SIGTERM, in-flight requests finish. */
   stop(): Promise<void>;
+  /** Ends the process at once (SIGKILL), as a crash or a lost machine would, mid-request. */
+  crash(): Promise<void>;
 }
 
 function freePort(): Promise<number> {
@@ -52,14 +55,11 @@ export async function startAppServer(env: Record<string, string> = {}, onPort?: 
     },
   });
   await waitForHealth(origin, child);
-  return {
-    origin,
-    port,
-    stop: () =>
-      new Promise<void>((resolve) => {
-        if (child.exitCode !== null) return resolve();
-        child.once('exit', () => resolve());
-        child.kill('SIGTERM');
-      }),
-  };
+  const end = (signal: NodeJS.Signals) =>
+    new Promise<void>((resolve) => {
+      if (child.exitCode !== null || child.signalCode !== null) return resolve();
+      child.once('exit', () => resolve());
+      child.kill(signal);
+    });
+  return { origin, port, stop: () => end('SIGTERM'), crash: () => end('SIGKILL') };
 }
