@@ -2,7 +2,9 @@
 // throttled connection) against the production build served by the real server, signed in as the demo
 // builder, in Debian's Chromium. Run with `npm run bench:lighthouse`; it builds the app when needed and
 // uses a database of its own, seeded afresh with the demo workshop. Target: 95 or more for performance
-// and accessibility on each page. Prints the scores and exits 1 when one falls short.
+// and accessibility on each page. Prints the scores and exits 1 when one falls short. With
+// LIGHTHOUSE_DETAILS=1 it also writes each page's report and its trace to /tmp/lighthouse-<page>.json and
+// .trace.json (open the trace in Chromium's performance panel to see what the long tasks do).
 import { spawn, type ChildProcess } from 'node:child_process';
 import { createServer } from 'node:net';
 import { navigation } from 'lighthouse';
@@ -85,10 +87,17 @@ async function signIn(page: Page, origin: string): Promise<void> {
   })()`);
   // Let the first sync fill the device store, as it would have on a phone in use.
   await page.goto(`${origin}/device`, { waitUntil: 'networkidle0' });
-  await page.waitForFunction(
-    `document.body.textContent.includes('Last synced: ') && !document.body.textContent.includes('not yet on this device')`,
-    { timeout: 30_000 },
-  );
+  try {
+    await page.waitForFunction(
+      `document.body.textContent.includes('Last synced: ') && !document.body.textContent.includes('not yet on this device')`,
+      { timeout: 30_000 },
+    );
+  } catch (error) {
+    const shown = await page.evaluate('document.body.innerText');
+    throw new Error(`The first sync did not finish within 30 s. The device page read:\n${String(shown)}`, {
+      cause: error,
+    });
+  }
 }
 
 const databaseUrl = await freshDatabase();
@@ -130,6 +139,7 @@ try {
     if (process.env['LIGHTHOUSE_DETAILS']) {
       const { writeFileSync } = await import('node:fs');
       writeFileSync(`/tmp/lighthouse-${name.replace(/\W+/g, '-')}.json`, JSON.stringify(result!.lhr));
+      writeFileSync(`/tmp/lighthouse-${name.replace(/\W+/g, '-')}.trace.json`, JSON.stringify(result!.artifacts.Trace));
     }
     for (const audit of Object.values(result!.lhr.audits)) {
       if (

@@ -63,6 +63,34 @@ describe('AccountSession', () => {
       expect(session.stale()).toBeFalse();
     });
 
+    it('should keep the very same account and workshop when the server confirms what the device knew', async () => {
+      localStorage.setItem(SESSION_KEY, JSON.stringify(SESSION));
+      const session = create();
+      const [account, workshop] = [session.account(), session.currentWorkshop()];
+
+      const loaded = session.refreshIfRemembered();
+      http.expectOne({ method: 'GET', url: '/api/account' }).flush(structuredClone(SESSION));
+      await loaded;
+
+      // The same objects, so no screen reading them renders again once start-up is confirmed.
+      expect(session.stale()).toBeFalse();
+      expect(session.account()).toBe(account);
+      expect(session.currentWorkshop()).toBe(workshop);
+    });
+
+    it('should take a remembered session the server has changed since', async () => {
+      localStorage.setItem(SESSION_KEY, JSON.stringify(SESSION));
+      const session = create();
+      const renamed: SessionView = { ...SESSION, account: { ...SESSION.account, displayName: 'Ada B.' } };
+
+      const loaded = session.refreshIfRemembered();
+      http.expectOne({ method: 'GET', url: '/api/account' }).flush(renamed);
+      await loaded;
+
+      expect(session.account()?.displayName).toBe('Ada B.');
+      expect(storedSession()).toEqual(renamed);
+    });
+
     it('should keep the session the server sends, and store it on the device', async () => {
       const session = create();
 

@@ -75,9 +75,13 @@ export class AccountSession {
   /** Takes a session the server just sent. */
   keep(session: SessionView): void {
     this.changes += 1;
-    this.state.set(session);
     this.confirmed.set(true);
-    store(SESSION_KEY, JSON.stringify(session));
+    const kept = JSON.stringify(session);
+    // The server confirming what the device already knew changes nothing on screen: a new object
+    // here would make every screen that reads the account or workshop render again at start-up.
+    if (kept === JSON.stringify(this.state())) return;
+    this.state.set(session);
+    store(SESSION_KEY, kept);
   }
 
   /** Forgets the account on this device, after it signed out or the server ended the session. */
