@@ -32,17 +32,45 @@ export interface ReminderJobs {
 }
 
 /**
+ * How a tick lost with its process is noticed: pg-boss counts a tick still running after
+ * `tickExpirySeconds` as failed, and each process looks for such ticks every
+ * `maintenanceIntervalSeconds`. The tick queue runs one tick at a time, so an API process that dies
+ * mid-tick holds reminders up for at most about the two together (pg-boss's own 15 minutes, by
+ * default). Expiring a slow tick that is in fact still running is harmless: deliveries are claimed
+ * under row locks, so the next tick cannot send one twice.
+ */
+export interface LostTickTimings {
+  tickExpirySeconds: number;
+  maintenanceIntervalSeconds: number;
+}
+const LOST_TICK_TIMINGS: LostTickTimings = { tickExpirySeconds: 120, maintenanceIntervalSeconds: 60 };
+
+/**
  * Runs the reminders on pg-boss in the app's own PostgreSQL (schema `pgboss`): a tick every minute
  * sends what is due, and a weekly job makes out the shelf digests (Monday 08:00 UTC). pg-boss keeps
  * one scheduled job per tick across every API process and hands each job to one worker; the
  * deliveries themselves are claimed with row locks, so a second process never sends one twice.
  */
-export async function startReminderJobs(ctx: ServerContext, pollingIntervalSeconds = 2): Promise<ReminderJobs> {
-  const boss = new PgBoss({ connectionString: ctx.config.databaseUrl, schema: 'pgboss', max: 2 });
+export async function startReminderJobs(
+  ctx: ServerContext,
+  pollingIntervalSeconds = 2,
+  lost: LostTickTimings = LOST_TICK_TIMINGS,
+): Promise<ReminderJobs> {
+  const boss = new PgBoss({
+    connectionString: ctx.config.databaseUrl,
+    schema: 'pgboss',
+    max: 2,
+    maintenanceIntervalSeconds: lost.maintenanceIntervalSeconds,
+  });
   boss.on('error', (error) => ctx.log.error({ err: error }, 'reminder queue trouble'));
   await boss.start();
-  await boss.createQueue(REMINDER_QUEUE, { name: REMINDER_QUEUE, policy: 'singleton' });
-  await boss.createQueue(DIGEST_QUEUE, { name: DIGEST_QUEUE, policy: 'singleton' });
+  for (const name of [REMINDER_QUEUE, DIGEST_QUEUE]) {
+    // No retries: a lost or failed tick's work is what the next minute's tick does anyway.
+    const queue = { name, policy: 'singleton', expireInSeconds: lost.tickExpirySeconds, retryLimit: 0 } as const;
+    await boss.createQueue(name, queue);
+    // A queue made by an earlier version keeps its old settings unless told.
+    await boss.updateQueue(name, queue);
+  }
   await boss.schedule(REMINDER_QUEUE, '* * * * *');
   await boss.schedule(DIGEST_QUEUE, '0 8 * * 1', {}, { tz: 'UTC' });
   const sending = await sendingFor(ctx);

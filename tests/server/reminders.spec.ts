@@ -1,4 +1,5 @@
 import { and, eq } from 'drizzle-orm';
+import PgBoss from 'pg-boss';
 import { pushSubscriptions, reminderDeliveries, reminderPreferences, reminders } from '../../server/db/schema/index.js';
 import {
   REMINDER_QUEUE,
@@ -342,6 +343,41 @@ describe('cure reminders', () => {
     } finally {
       for (const running of processes) await running.stop();
       await other.pool.end();
+    }
+  }, 40_000);
+
+  it('should not let a tick lost with its process hold reminders up for long', async () => {
+    await choose(builder, ['push'], null);
+    await subscribe(server.ctx, builder.id, { ...push.subscribe('lost-tick-phone'), label: '' });
+    await logPour('Lost tick pool');
+    server.clock.advanceMinutes(241);
+    // Short timings so the spec is quick; the app's are 120 s and 60 s.
+    const lost = { tickExpirySeconds: 1, maintenanceIntervalSeconds: 1 };
+    const config = { ...server.ctx.config, databaseUrl: TEST_DATABASE_URL };
+    // The app's start-up sets how long a tick may run; this first process stops at once.
+    await (await startReminderJobs({ ...server.ctx, config }, 0.5, lost)).stop();
+    // A process takes a tick and dies before finishing it: the job stays active, and the queue runs
+    // one tick at a time, so nothing else would run until pg-boss counts it lost.
+    const dying = new PgBoss({
+      connectionString: TEST_DATABASE_URL,
+      schema: 'pgboss',
+      supervise: false,
+      schedule: false,
+    });
+    await dying.start();
+    await dying.send(REMINDER_QUEUE, {});
+    expect((await dying.fetch(REMINDER_QUEUE)).length).toBe(1);
+    const survivor = await startReminderJobs({ ...server.ctx, config }, 0.5, lost);
+    try {
+      await survivor.boss.send(REMINDER_QUEUE, {});
+      const deadline = Date.now() + 20_000;
+      while (!push.received.some((p) => p.payload.includes('Lost tick pool')) && Date.now() < deadline) {
+        await new Promise((resolve) => setTimeout(resolve, 100));
+      }
+      expect(push.received.filter((p) => p.payload.includes('Lost tick pool on')).length).toBe(1);
+    } finally {
+      await survivor.stop();
+      await dying.stop({ graceful: false, wait: true });
     }
   }, 40_000);
 });

@@ -188,7 +188,9 @@ describe('two API processes on one database', () => {
       })),
     ]);
     // pg-boss ticks once a minute; these ticks go out now instead. Each has its own key, so the
-    // singleton queue lets both processes run one at the same time.
+    // singleton queue lets both processes run one at the same time; a slow push service keeps a
+    // tick at work long enough (a quarter second a push) for the other process to start one too.
+    push.answerAfter(250);
     ticks = await Promise.all(
       [0, 1, 2, 3].map((i) => sender.send(REMINDER_QUEUE, {}, { singletonKey: `two-processes-${workshopId}-${i}` })),
     );

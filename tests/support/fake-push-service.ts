@@ -41,6 +41,8 @@ export interface FakePushService {
   readonly refused: string[];
   /** Answer this status to every delivery from now on (e.g. 410 for an expired subscription); null to accept again. */
   answerWith(status: number | null): void;
+  /** Hold every accepted delivery's answer this long, like a slow push service (0 to answer at once). */
+  answerAfter(ms: number): void;
   close(): Promise<void>;
 }
 
@@ -86,6 +88,7 @@ export async function startFakePushService(): Promise<FakePushService> {
   const received: ReceivedPush[] = [];
   const refused: string[] = [];
   let forcedStatus: number | null = null;
+  let answerDelayMs = 0;
   let origin = '';
 
   const server: Server = createServer((req, res) => {
@@ -114,7 +117,7 @@ export async function startFakePushService(): Promise<FakePushService> {
           authSecret: device.authSecret,
         });
         received.push({ device: name, payload: plain.toString('utf8'), subject, ttl: Number(req.headers['ttl']) });
-        res.writeHead(201).end();
+        setTimeout(() => res.writeHead(201).end(), answerDelayMs);
       } catch (error) {
         refuse(400, `cannot decrypt: ${(error as Error).message}`);
       }
@@ -139,6 +142,9 @@ export async function startFakePushService(): Promise<FakePushService> {
     },
     answerWith(status) {
       forcedStatus = status;
+    },
+    answerAfter(ms) {
+      answerDelayMs = ms;
     },
     close: () => new Promise<void>((resolve) => server.close(() => resolve())),
   };
