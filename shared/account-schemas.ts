@@ -2,7 +2,7 @@
  * Requests and answers of accounts and workshops, shared by the forms and the API so both
  * validate with the same rules and the same words.
  */
-import { z } from 'zod';
+import * as z from 'zod';
 
 export const MIN_PASSWORD_LENGTH = 10;
 export const MAX_PASSWORD_LENGTH = 256;

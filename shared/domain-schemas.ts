@@ -3,7 +3,7 @@
  * materials and the containers (lots) on the shelf, and pours. Ids are made on the device that
  * creates a record (UUID v7), so the same record can be written offline and synced later.
  */
-import { z } from 'zod';
+import * as z from 'zod';
 import { materialDataSheetSchema, pourShapeSchema } from './schemas.js';
 
 const id = (label: string) => z.uuid({ error: `${label} must be an id made by the app` });

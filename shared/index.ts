@@ -11,6 +11,7 @@ export * from './pour-draw.js';
 export * from './pour-milestones.js';
 export * from './pour-plan.js';
 export * from './pour-reminders.js';
+export * from './photo-files.js';
 export * from './photo-schemas.js';
 export * from './pour-volume.js';
 export * from './rounding.js';

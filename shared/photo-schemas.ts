@@ -4,19 +4,7 @@
  * the same photo); the server keeps only a display copy and a thumbnail, re-encoded without
  * location or any other metadata. Captions and deletes travel as ordinary sync changes.
  */
-import { z } from 'zod';
-
-/** What the server accepts, sniffed from the bytes. HEIC only where the image decoder can read it. */
-export const PHOTO_TYPES = ['image/jpeg', 'image/png', 'image/webp', 'image/heic'] as const;
-export type PhotoType = (typeof PHOTO_TYPES)[number];
-
-/** 25 MiB: a full-size photo from a current phone camera is 3–12 MB (common practice). */
-export const MAX_PHOTO_BYTES = 25 * 1024 * 1024;
-/** The longer side of the copies kept, in pixels. */
-export const PHOTO_DISPLAY_PX = 2048;
-export const PHOTO_THUMB_PX = 480;
-export const PHOTO_SIZES = ['display', 'thumb'] as const;
-export type PhotoSize = (typeof PHOTO_SIZES)[number];
+import * as z from 'zod';
 
 const optionalId = (label: string) =>
   z
@@ -80,9 +68,4 @@ export interface PhotoRecord {
   readonly updatedAt: string;
   readonly deletedAt: string | null;
   readonly changeNumber: number;
-}
-
-/** Where a member's browser fetches a copy of a photo. */
-export function photoUrl(workshopId: string, photoId: string, size: PhotoSize): string {
-  return `/api/workshops/${workshopId}/photos/${photoId}/${size}`;
 }

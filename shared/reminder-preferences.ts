@@ -4,7 +4,7 @@
  * and quiet hours in the member's own time zone, during which a reminder waits until they end.
  */
 import { TZDate } from '@date-fns/tz';
-import { z } from 'zod';
+import * as z from 'zod';
 
 export const REMINDER_KINDS = ['next-layer-due', 'demould', 'full-cure', 'shelf-digest'] as const;
 export type ReminderKind = (typeof REMINDER_KINDS)[number];

@@ -2,7 +2,7 @@
  * Validation shared by the pour form and the server, with messages a modeller can act on.
  * Impossible values (negative depth, a zero ratio, density 0, NaN, Infinity) never reach the maths.
  */
-import { z } from 'zod';
+import * as z from 'zod';
 import { polygonAreaMm2 } from './pour-volume.js';
 
 const MIN_TEMP_C = -30;

@@ -3,7 +3,7 @@
  * for it in its own store at once; the outbox of mutations is pushed in order, each applied
  * at most once (its id is remembered); changes are pulled by the workshop's change number.
  */
-import { z } from 'zod';
+import * as z from 'zod';
 import {
   buildPatchSchema,
   containerPatchSchema,

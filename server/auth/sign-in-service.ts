@@ -1,5 +1,5 @@
 import { eq } from 'drizzle-orm';
-import type { z } from 'zod';
+import type * as z from 'zod';
 import type {
   resetPasswordRequestSchema,
   signInRequestSchema,

@@ -1,5 +1,5 @@
 import { and, eq, isNull } from 'drizzle-orm';
-import type { z } from 'zod';
+import type * as z from 'zod';
 import type { buildPatchSchema, newBuildSchema, newStepSchema, stepPatchSchema } from '../../shared/domain-schemas.js';
 import type { ServerContext } from '../context.js';
 import { builds, buildSteps, photos } from '../db/schema/index.js';

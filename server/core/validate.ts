@@ -1,4 +1,4 @@
-import type { z } from 'zod';
+import type * as z from 'zod';
 import { AppError } from './app-error.js';
 
 /** Parses a request body with a shared schema; a bad one becomes a 400 naming each field. */

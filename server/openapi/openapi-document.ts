@@ -4,7 +4,7 @@
  * from the shared workshop policy, the same one the server enforces.
  */
 import { OpenAPIRegistry, OpenApiGeneratorV3, type RouteConfig } from '@asteasolutions/zod-to-openapi';
-import { z } from 'zod';
+import * as z from 'zod';
 import {
   changePasswordRequestSchema,
   deleteAccountRequestSchema,

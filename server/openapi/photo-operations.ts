@@ -1,13 +1,7 @@
 /** The photo routes as the API description lists them; see openapi-document.ts for the rest. */
-import { z } from 'zod';
-import {
-  MAX_PHOTO_BYTES,
-  PHOTO_DISPLAY_PX,
-  PHOTO_SIZES,
-  PHOTO_THUMB_PX,
-  photoPatchSchema,
-  photoUploadFieldsSchema,
-} from '../../shared/photo-schemas.js';
+import * as z from 'zod';
+import { MAX_PHOTO_BYTES, PHOTO_DISPLAY_PX, PHOTO_SIZES, PHOTO_THUMB_PX } from '../../shared/photo-files.js';
+import { photoPatchSchema, photoUploadFieldsSchema } from '../../shared/photo-schemas.js';
 import type { ApiRoute } from './openapi-document.js';
 
 const w = '/api/workshops/{workshopId}';

@@ -1,5 +1,5 @@
 /** The reminder routes as the API description lists them; see openapi-document.ts for the rest. */
-import type { z } from 'zod';
+import type * as z from 'zod';
 import {
   pushSubscriptionSchema,
   pushUnsubscribeSchema,

@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import exifr from 'exifr';
 import { fileTypeFromBuffer } from 'file-type';
 import sharp from 'sharp';
-import { PHOTO_DISPLAY_PX, PHOTO_THUMB_PX, PHOTO_TYPES } from '../../shared/photo-schemas.js';
+import { PHOTO_DISPLAY_PX, PHOTO_THUMB_PX, PHOTO_TYPES } from '../../shared/photo-files.js';
 import { AppError } from '../core/app-error.js';
 
 /** Every copy kept is a JPEG: every browser shows one, and any metadata reader can confirm nothing else rides along. */

@@ -1,5 +1,6 @@
 import { and, eq, inArray, isNull, type SQL } from 'drizzle-orm';
-import type { PhotoRecord, PhotoSize } from '../../shared/photo-schemas.js';
+import type { PhotoSize } from '../../shared/photo-files.js';
+import type { PhotoRecord } from '../../shared/photo-schemas.js';
 import type { ServerContext } from '../context.js';
 import { AppError } from '../core/app-error.js';
 import type { Database } from '../db/database.js';

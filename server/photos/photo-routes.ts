@@ -1,13 +1,8 @@
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import { pipeline } from 'node:stream/promises';
-import {
-  MAX_PHOTO_BYTES,
-  PHOTO_SIZES,
-  photoPatchSchema,
-  photoUploadFieldsSchema,
-  type PhotoSize,
-} from '../../shared/photo-schemas.js';
+import { MAX_PHOTO_BYTES, PHOTO_SIZES, type PhotoSize } from '../../shared/photo-files.js';
+import { photoPatchSchema, photoUploadFieldsSchema } from '../../shared/photo-schemas.js';
 import { signedIn } from '../auth/session-middleware.js';
 import type { ServerContext } from '../context.js';
 import { AppError } from '../core/app-error.js';

@@ -1,6 +1,7 @@
 import { and, eq, isNull, sql } from 'drizzle-orm';
-import type { z } from 'zod';
-import type { photoPatchSchema, photoUploadFieldsSchema, PhotoRecord, PhotoSize } from '../../shared/photo-schemas.js';
+import type * as z from 'zod';
+import type { PhotoSize } from '../../shared/photo-files.js';
+import type { photoPatchSchema, photoUploadFieldsSchema, PhotoRecord } from '../../shared/photo-schemas.js';
 import { BUILD, STEP } from '../builds/build-service.js';
 import type { ServerContext } from '../context.js';
 import { AppError } from '../core/app-error.js';

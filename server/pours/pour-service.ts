@@ -1,5 +1,5 @@
 import { and, eq, isNull } from 'drizzle-orm';
-import type { z } from 'zod';
+import type * as z from 'zod';
 import type { newPourSchema } from '../../shared/domain-schemas.js';
 import { drawForPour, stockShortMessage } from '../../shared/pour-draw.js';
 import { planPour, type PourPlan } from '../../shared/pour-plan.js';

@@ -1,5 +1,5 @@
 import { and, eq, isNull } from 'drizzle-orm';
-import type { z } from 'zod';
+import type * as z from 'zod';
 import type {
   containerPatchSchema,
   materialPatchSchema,

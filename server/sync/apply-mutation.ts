@@ -1,4 +1,4 @@
-import type { z } from 'zod';
+import type * as z from 'zod';
 import type { mutationSchema } from '../../shared/sync-schemas.js';
 import { createBuild, createStep, deleteBuild, deleteStep, updateBuild, updateStep } from '../builds/build-service.js';
 import type { ServerContext } from '../context.js';

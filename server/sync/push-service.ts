@@ -1,5 +1,5 @@
 import { inArray } from 'drizzle-orm';
-import { z } from 'zod';
+import * as z from 'zod';
 import type { Role } from '../../shared/account-schemas.js';
 import { mutationSchema, type MutationResult, type PushAnswer } from '../../shared/sync-schemas.js';
 import type { ServerContext } from '../context.js';

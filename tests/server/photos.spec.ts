@@ -7,7 +7,7 @@ import { basename, join } from 'node:path';
 import sharp from 'sharp';
 import request from 'supertest';
 import { v7 } from 'uuid';
-import { MAX_PHOTO_BYTES } from '../../shared/photo-schemas.js';
+import { MAX_PHOTO_BYTES } from '../../shared/photo-files.js';
 import { photos } from '../../server/db/schema/index.js';
 import { makeAccount, makeWorkshop, type TestAccount } from '../support/accounts.js';
 import { benchJpeg, uploadPhoto, type UploadFields } from '../support/photos.js';

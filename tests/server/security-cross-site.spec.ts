@@ -3,7 +3,7 @@ import { request as httpRequest, type IncomingMessage } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import request from 'supertest';
 import { v7 } from 'uuid';
-import { MAX_PHOTO_BYTES } from '../../shared/photo-schemas.js';
+import { MAX_PHOTO_BYTES } from '../../shared/photo-files.js';
 import { openApiDocument } from '../../server/openapi/openapi-document.js';
 import { makeAccount, makeWorkshop, type TestAccount } from '../support/accounts.js';
 import { benchJpeg, uploadPhoto } from '../support/photos.js';

@@ -7,7 +7,7 @@ import type {
   verifyEmailRequestSchema,
 } from '@benchtide/shared';
 import { firstValueFrom } from 'rxjs';
-import type { z } from 'zod';
+import type * as z from 'zod';
 import { AccountSession } from './account-session';
 
 /** The server's answer where it must not tell whether an address has an account. */

@@ -7,7 +7,7 @@ import type {
   updateAccountRequestSchema,
 } from '@benchtide/shared';
 import { firstValueFrom } from 'rxjs';
-import type { z } from 'zod';
+import type * as z from 'zod';
 import { AccountSession } from './account-session';
 
 /** Changes to the signed-in account itself. */

@@ -30,7 +30,7 @@ import {
 } from '@benchtide/shared';
 import { map, startWith } from 'rxjs';
 import { v7 } from 'uuid';
-import type { z } from 'zod';
+import type * as z from 'zod';
 import type { ApiProblem } from '../core/api-error';
 import { DevicePreferences } from '../core/device-preferences';
 import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';

@@ -11,7 +11,7 @@ import {
   type ScaleEntry,
   type UnitSystem,
 } from '@benchtide/shared';
-import type { z } from 'zod';
+import type * as z from 'zod';
 import { lengthText, parseDecimal } from '../core/decimal-input';
 import type { LocalBuild } from '../sync/synced-records';
 import { realLengthUnit, type BuildStatus } from './build-words';

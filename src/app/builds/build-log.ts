@@ -2,7 +2,7 @@ import { Injectable, Injector, computed, inject, signal, type Signal } from '@an
 import { toSignal } from '@angular/core/rxjs-interop';
 import { buildPatchSchema, may, stepPatchSchema, type NewBuild, type NewStep } from '@benchtide/shared';
 import { interval, map, startWith } from 'rxjs';
-import type { z } from 'zod';
+import type * as z from 'zod';
 import { AccountSession } from '../account/account-session';
 import { BuildPhotos, type PhotoTarget, type PickedPhoto } from '../photos/build-photos';
 import { LocalRecords } from '../sync/local-records';

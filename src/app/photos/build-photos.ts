@@ -1,10 +1,10 @@
 import { computed, inject, Injectable, type Injector, type Signal } from '@angular/core';
-import { photoPatchSchema, photoUploadFieldsSchema } from '@benchtide/shared';
 import { Subject } from 'rxjs';
 import { BenchDb } from '../sync/bench-db';
 import { liveSignal, liveSignalOf } from '../sync/live-signal';
 import { OfflineStore } from '../sync/offline-store';
 import type { LocalBuild, LocalPhoto, PhotoUploadRow } from '../sync/synced-records';
+import { writeChecks } from '../sync/write-checks';
 
 /** A photo chosen and checked on this device, its id made already, not yet stored. */
 export interface PickedPhoto {
@@ -107,6 +107,8 @@ export class BuildPhotos {
     photos: readonly PickedPhoto[],
     alongside?: () => Promise<unknown>,
   ): Promise<void> {
+    // Loaded before the transaction, which a step logged `alongside` also writes in.
+    const { photoUploadFieldsSchema } = await writeChecks();
     const fields = photoUploadFieldsSchema.parse({ ...target, caption: '' });
     const createdAt = new Date().toISOString();
     const uploads: PhotoUploadRow[] = photos.map(({ id, file, takenAt }) => ({
@@ -135,6 +137,7 @@ export class BuildPhotos {
   }
 
   async setCaption(workshopId: string, photoId: string, caption: string): Promise<void> {
+    const { photoPatchSchema } = await writeChecks();
     const text = photoPatchSchema.parse({ caption }).caption ?? '';
     const { db } = this;
     await db.transaction('rw', [...db.syncedTables, db.outbox, db.photoUploads], async () => {
@@ -149,6 +152,7 @@ export class BuildPhotos {
   /** Takes the photo out of the build, and off its cover if it was on it. */
   async remove(workshopId: string, build: Pick<LocalBuild, 'id' | 'coverPhotoId'>, photoId: string): Promise<void> {
     const { db } = this;
+    await this.store.ready();
     await db.transaction('rw', [...db.syncedTables, db.outbox, db.photoUploads], async () => {
       if (build.coverPhotoId === photoId) await this.store.patchBuild(workshopId, build.id, { coverPhotoId: null });
       if ((await db.photoUploads.get(photoId)) === undefined) return this.store.deletePhoto(workshopId, photoId);

@@ -133,6 +133,7 @@ export class PhotoUploader {
    */
   private async done(row: PhotoUploadRow, sentCaption: string): Promise<void> {
     const { db } = this;
+    await this.store.ready();
     await db.transaction('rw', [...db.syncedTables, db.outbox, db.photoUploads], async () => {
       await db.photoUploads.delete(row.id);
       const photo = await db.photos.get(row.id);

@@ -1,4 +1,4 @@
-import type { z } from 'zod';
+import type * as z from 'zod';
 
 /**
  * The shared schema's first message for each field, by the field's path ("sizeQty", "dataSheet.potLifeMin"),

@@ -6,7 +6,7 @@ import {
   type NewContainer,
   type NewMaterial,
 } from '@benchtide/shared';
-import type { z } from 'zod';
+import type * as z from 'zod';
 import { AccountSession } from '../account/account-session';
 import { BenchDb } from '../sync/bench-db';
 import { remainingOnDevice } from '../sync/device-stock';

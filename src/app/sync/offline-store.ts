@@ -1,22 +1,9 @@
 import { inject, Injectable } from '@angular/core';
 import {
-  buildPatchSchema,
-  containerPatchSchema,
   costOfUseMinor,
   drawForPour,
-  materialPatchSchema,
-  newBuildSchema,
-  newContainerSchema,
-  newMaterialSchema,
-  newPourSchema,
-  newStepSchema,
-  photoPatchSchema,
-  planPour,
-  stepPatchSchema,
   stockShortMessage,
   stocktakeAdjustment,
-  stocktakeSchema,
-  wasteSchema,
   type FieldError,
   type Mutation,
   type NewBuild,
@@ -29,16 +16,17 @@ import {
 } from '@benchtide/shared';
 import { Subject } from 'rxjs';
 import { v7 } from 'uuid';
-import type { z } from 'zod';
+import type * as z from 'zod';
 import { BenchDb } from './bench-db';
 import { remainingOnDevice } from './device-stock';
 import { discardChange } from './discard-change';
 import { insertRecords, ledgerEntry, patchRecord, softDelete, type NewFields } from './record-writes';
 import type { RecordUndo, SyncedTableName } from './synced-records';
+import { writeChecks, type WriteChecks } from './write-checks';
 
 /** A new record as a form gives it: the id is made here unless the caller made it already. */
 type Draft<T> = Omit<T, 'id'> & { id?: string };
-type Input<T extends z.ZodType> = z.input<T>;
+type Input<K extends keyof WriteChecks> = WriteChecks[K] extends z.ZodType ? z.input<WriteChecks[K]> : never;
 
 const MATERIAL_NOT_HERE =
   'The material of this pour is not on this device. Sync this workshop, then log the pour again; nothing was saved.';
@@ -72,6 +60,7 @@ export class PourPlanError extends Error {
  * Every change the bench makes: written to this device's records and queued for the server in one
  * transaction, so a change is never stored without being queued nor queued without being stored.
  * Input is checked with the shared schemas first, so a bad value throws before anything is written.
+ * A caller that runs one of these writes inside a transaction of its own awaits `ready()` before opening it.
  */
 @Injectable({ providedIn: 'root' })
 export class OfflineStore {
@@ -80,6 +69,11 @@ export class OfflineStore {
 
   /** The workshop of each change just queued, for the sync engine to push. */
   readonly changes = this.queued.asObservable();
+
+  /** Loads what the writes are checked with, for a caller about to open a transaction around one. */
+  ready(): Promise<unknown> {
+    return writeChecks();
+  }
 
   /** Runs `change` on the local records and queues `mutation`, atomically; `change` says how to undo itself. */
   async apply(workshopId: string, mutation: Mutation, change: (now: string) => Promise<RecordUndo[]>): Promise<void> {
@@ -94,11 +88,11 @@ export class OfflineStore {
   }
 
   async createBuild(workshopId: string, draft: Draft<NewBuild>): Promise<string> {
-    const data = newBuildSchema.parse(withId(draft));
+    const data = (await writeChecks()).newBuildSchema.parse(withId(draft));
     return this.create(workshopId, { type: 'build.create', mutationId: v7(), data }, [['builds', data]]);
   }
-  async patchBuild(workshopId: string, id: string, patch: Input<typeof buildPatchSchema>): Promise<void> {
-    const data = buildPatchSchema.parse(patch);
+  async patchBuild(workshopId: string, id: string, patch: Input<'buildPatchSchema'>): Promise<void> {
+    const data = (await writeChecks()).buildPatchSchema.parse(patch);
     return this.patch(workshopId, 'builds', { type: 'build.patch', mutationId: v7(), recordId: id, data });
   }
   async deleteBuild(workshopId: string, id: string): Promise<void> {
@@ -106,11 +100,11 @@ export class OfflineStore {
   }
 
   async createStep(workshopId: string, draft: Draft<NewStep>): Promise<string> {
-    const data = newStepSchema.parse(withId(draft));
+    const data = (await writeChecks()).newStepSchema.parse(withId(draft));
     return this.create(workshopId, { type: 'step.create', mutationId: v7(), data }, [['steps', data]]);
   }
-  async patchStep(workshopId: string, id: string, patch: Input<typeof stepPatchSchema>): Promise<void> {
-    const data = stepPatchSchema.parse(patch);
+  async patchStep(workshopId: string, id: string, patch: Input<'stepPatchSchema'>): Promise<void> {
+    const data = (await writeChecks()).stepPatchSchema.parse(patch);
     return this.patch(workshopId, 'steps', { type: 'step.patch', mutationId: v7(), recordId: id, data });
   }
   async deleteStep(workshopId: string, id: string): Promise<void> {
@@ -118,11 +112,11 @@ export class OfflineStore {
   }
 
   async createMaterial(workshopId: string, draft: Draft<NewMaterial>): Promise<string> {
-    const data = newMaterialSchema.parse(withId(draft));
+    const data = (await writeChecks()).newMaterialSchema.parse(withId(draft));
     return this.create(workshopId, { type: 'material.create', mutationId: v7(), data }, [['materials', data]]);
   }
-  async patchMaterial(workshopId: string, id: string, patch: Input<typeof materialPatchSchema>): Promise<void> {
-    const data = materialPatchSchema.parse(patch);
+  async patchMaterial(workshopId: string, id: string, patch: Input<'materialPatchSchema'>): Promise<void> {
+    const data = (await writeChecks()).materialPatchSchema.parse(patch);
     return this.patch(workshopId, 'materials', { type: 'material.patch', mutationId: v7(), recordId: id, data });
   }
   async deleteMaterial(workshopId: string, id: string): Promise<void> {
@@ -131,7 +125,7 @@ export class OfflineStore {
 
   /** A new container arrives full: its purchase entry shares its id, as on the server. */
   async createContainer(workshopId: string, draft: Draft<NewContainer>): Promise<string> {
-    const data = newContainerSchema.parse(withId(draft));
+    const data = (await writeChecks()).newContainerSchema.parse(withId(draft));
     const purchase = ledgerEntry(data.id, 'purchase', data.sizeQty, { at: `${data.boughtOn}T12:00:00Z` });
     const mutation: Mutation = { type: 'container.create', mutationId: v7(), data };
     return this.create(workshopId, mutation, [
@@ -139,8 +133,8 @@ export class OfflineStore {
       ['ledgerEntries', purchase],
     ]);
   }
-  async patchContainer(workshopId: string, id: string, patch: Input<typeof containerPatchSchema>): Promise<void> {
-    const data = containerPatchSchema.parse(patch);
+  async patchContainer(workshopId: string, id: string, patch: Input<'containerPatchSchema'>): Promise<void> {
+    const data = (await writeChecks()).containerPatchSchema.parse(patch);
     return this.patch(workshopId, 'containers', { type: 'container.patch', mutationId: v7(), recordId: id, data });
   }
   async deleteContainer(workshopId: string, id: string): Promise<void> {
@@ -148,8 +142,8 @@ export class OfflineStore {
   }
 
   /** Shown at once, costed from this device's copy of the container; the server's entry replaces it on pull. */
-  async recordWaste(workshopId: string, containerId: string, draft: Draft<Input<typeof wasteSchema>>): Promise<string> {
-    const data = wasteSchema.parse(withId(draft));
+  async recordWaste(workshopId: string, containerId: string, draft: Draft<Input<'wasteSchema'>>): Promise<string> {
+    const data = (await writeChecks()).wasteSchema.parse(withId(draft));
     const mutation: Mutation = { type: 'container.waste', mutationId: v7(), recordId: containerId, data };
     await this.apply(workshopId, mutation, async (now) => {
       const container = await this.db.containers.get(containerId);
@@ -166,9 +160,9 @@ export class OfflineStore {
   async recordStocktake(
     workshopId: string,
     containerId: string,
-    draft: Draft<Input<typeof stocktakeSchema>>,
+    draft: Draft<Input<'stocktakeSchema'>>,
   ): Promise<string> {
-    const data = stocktakeSchema.parse(withId(draft));
+    const data = (await writeChecks()).stocktakeSchema.parse(withId(draft));
     const mutation: Mutation = { type: 'container.stocktake', mutationId: v7(), recordId: containerId, data };
     await this.apply(workshopId, mutation, async (now) => {
       const sums = await remainingOnDevice(this.db, [containerId]);
@@ -187,6 +181,7 @@ export class OfflineStore {
    * device, the pour cannot be planned, or the shelf is short and `whenShort` is refuse.
    */
   async logPour(workshopId: string, draft: Draft<NewPour>): Promise<string> {
+    const { newPourSchema, planPour } = await writeChecks();
     const data = newPourSchema.parse(withId(draft));
     const { id, buildId, materialId, startAt, note, containerIds } = data;
     const mutation: Mutation = { type: 'pour.create', mutationId: v7(), data };
@@ -215,8 +210,8 @@ export class OfflineStore {
   }
 
   /** For a photo the server holds; one whose upload still waits is changed with its upload instead. */
-  async patchPhoto(workshopId: string, id: string, patch: Input<typeof photoPatchSchema>): Promise<void> {
-    const data = photoPatchSchema.parse(patch);
+  async patchPhoto(workshopId: string, id: string, patch: Input<'photoPatchSchema'>): Promise<void> {
+    const data = (await writeChecks()).photoPatchSchema.parse(patch);
     return this.patch(workshopId, 'photos', { type: 'photo.patch', mutationId: v7(), recordId: id, data });
   }
   async deletePhoto(workshopId: string, id: string): Promise<void> {

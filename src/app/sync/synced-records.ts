@@ -11,7 +11,7 @@ import type {
   PourShortfall,
   SyncedEntity,
 } from '@benchtide/shared';
-import type { z } from 'zod';
+import type * as z from 'zod';
 
 /**
  * The records as this device keeps them: the server's rows as JSON (times as ISO strings, absent values as

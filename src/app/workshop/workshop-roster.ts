@@ -4,7 +4,7 @@ import { Injectable, computed, inject, linkedSignal, signal } from '@angular/cor
 import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import type { InvitationView, invitationRequestSchema, MemberView, Role } from '@benchtide/shared';
 import { catchError, firstValueFrom, forkJoin, map, of, startWith, switchMap, type Observable } from 'rxjs';
-import type { z } from 'zod';
+import type * as z from 'zod';
 import { AccountSession } from '../account/account-session';
 import { apiError, type ApiProblem } from '../core/api-error';
 

@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, inject } from '@angular/core';
 import type { InvitationPreview, WorkshopView, workshopRequestSchema } from '@benchtide/shared';
 import { firstValueFrom } from 'rxjs';
-import type { z } from 'zod';
+import type * as z from 'zod';
 import { AccountSession } from '../account/account-session';
 
 type WorkshopRequest = z.output<typeof workshopRequestSchema>;
