@@ -120,7 +120,10 @@ for (const [i, benchmark] of BENCHMARKS.entries()) {
   summary.push(`| ${benchmark.title} | ${outcome} | ${seconds.toFixed(0)} s |`);
   // Tables the benchmarks print are Markdown already; everything else goes in a plain block.
   const isTable = (line: string) => line.startsWith('|');
-  const lines = output.trimEnd().split('\n');
+  const lines = output
+    .trimEnd()
+    .split('\n')
+    .filter((line, at, all) => line.trim() !== '' || (at > 0 && !isTable(all[at - 1]!)));
   const body: string[] = [];
   for (const [at, line] of lines.entries()) {
     const opensBlock = !isTable(line) && (at === 0 || isTable(lines[at - 1]!));
@@ -133,7 +136,8 @@ for (const [i, benchmark] of BENCHMARKS.entries()) {
     .join('\n')
     .replace(/\n{3,}/g, '\n\n')
     .trim();
-  sections.push(`## ${benchmark.title}\n\n${benchmark.what}. Outcome: **${outcome}**.\n\n${text}\n`);
+  const what = benchmark.what[0]!.toUpperCase() + benchmark.what.slice(1);
+  sections.push(`## ${benchmark.title}\n\n${what}. Outcome: **${outcome}**.\n\n${text}\n`);
 }
 
 const report = [
@@ -152,4 +156,6 @@ const dir = join('tools', 'bench', 'reports');
 mkdirSync(dir, { recursive: true });
 const file = join(dir, `${startedAt.toISOString().slice(0, 10)}.md`);
 writeFileSync(file, report);
+// Laid out as the repository's formatter wants it, so a report can be committed as it is.
+execFileSync(process.execPath, ['node_modules/prettier/bin/prettier.cjs', '--write', file], { stdio: 'ignore' });
 console.log(`\n[bench] report written to ${file}`);
