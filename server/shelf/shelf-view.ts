@@ -1,11 +1,9 @@
 import { addDays, differenceInCalendarDays, formatISO, parseISO } from 'date-fns';
 import { and, eq, isNull } from 'drizzle-orm';
+import { USE_BY_NOTICE_DAYS } from '../../shared/shelf-warnings.js';
 import type { ServerContext } from '../context.js';
 import { containers, containerStock, materials } from '../db/schema/index.js';
 import { authorize } from '../workshops/workshop-service.js';
-
-/** Days before a use-by date that the shelf starts to say so. */
-export const USE_BY_WARNING_DAYS = 30;
 
 export interface ContainerOnShelf {
   id: string;
@@ -56,7 +54,7 @@ export async function shelfOf(ctx: ServerContext, userId: string, workshopId: st
       openedOn: row.container.openedOn,
       useBy,
       lowStock: row.container.lowStockQty !== null && remainingQty <= row.container.lowStockQty,
-      useBySoon: daysLeft !== null && daysLeft >= 0 && daysLeft <= USE_BY_WARNING_DAYS,
+      useBySoon: daysLeft !== null && daysLeft >= 0 && daysLeft <= USE_BY_NOTICE_DAYS,
       expired: daysLeft !== null && daysLeft < 0,
       lot: row.container.lot,
     });

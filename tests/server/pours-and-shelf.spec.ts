@@ -1,5 +1,7 @@
+import { addDays, formatISO } from 'date-fns';
 import { parse } from 'csv-parse/sync';
 import { v7 } from 'uuid';
+import { USE_BY_NOTICE_DAYS } from '../../shared/shelf-warnings.js';
 import { makeAccount, makeWorkshop } from '../support/accounts.js';
 import { addBuild, addContainer, addMaterial, api, pourBody, type Api } from '../support/shelf.js';
 import { testServer, type TestServer } from '../support/test-app.js';
@@ -169,6 +171,18 @@ describe('the shelf', () => {
     // Opened 10 January 2025 with 180 days of shelf life: use by 9 July 2025 (counted by hand).
     expect(entry.useBy).toBe('2025-07-09');
     expect(entry.expired).toBeTrue();
+  });
+
+  it('should say a use-by is near when the device would, and not before', async () => {
+    const day = (offset: number) => formatISO(addDays(server.clock.now(), offset), { representation: 'date' });
+    const soon = await addContainer(client, materialId, { useBy: day(USE_BY_NOTICE_DAYS) });
+    const later = await addContainer(client, materialId, { useBy: day(USE_BY_NOTICE_DAYS + 1) });
+
+    const shelf = (await client.get('/shelf')).body as { containers: ContainerView[] }[];
+    const flag = (id: string) => shelf.flatMap((m) => m.containers).find((c) => c.id === id)!.useBySoon;
+
+    expect(flag(soon)).toBeTrue();
+    expect(flag(later)).toBeFalse();
   });
 
   it('should keep the safety data sheet note when a change to a material leaves it out', async () => {
