@@ -2,7 +2,16 @@ import { stringify } from 'csv-stringify/sync';
 import { eq } from 'drizzle-orm';
 import type { ServerContext } from '../context.js';
 import { AppError } from '../core/app-error.js';
-import { builds, buildSteps, containers, ledgerEntries, materials, pours, workshops } from '../db/schema/index.js';
+import {
+  builds,
+  buildSteps,
+  containers,
+  ledgerEntries,
+  materials,
+  photos,
+  pours,
+  workshops,
+} from '../db/schema/index.js';
 import { authorize } from '../workshops/workshop-service.js';
 
 /** The tables a workshop's record is made of, by the name they carry in an export. */
@@ -13,6 +22,8 @@ export const EXPORT_TABLES = {
   containers,
   ledger: ledgerEntries,
   pours,
+  /** The records of the photos; the keys name their files in the photo store, for a backup kept beside it. */
+  photos,
 } as const;
 export type ExportTable = keyof typeof EXPORT_TABLES;
 

@@ -3,6 +3,7 @@ import { parse } from 'csv-parse/sync';
 import { v7 } from 'uuid';
 import { USE_BY_NOTICE_DAYS } from '../../shared/shelf-warnings.js';
 import { makeAccount, makeWorkshop } from '../support/accounts.js';
+import { makeRecords } from '../support/records.js';
 import { addBuild, addContainer, addMaterial, api, pourBody, type Api } from '../support/shelf.js';
 import { testServer, type TestServer } from '../support/test-app.js';
 
@@ -248,5 +249,22 @@ describe('costs and exports', () => {
     expect(json.body.tables.builds.map((b: { id: string }) => b.id)).toEqual([buildId]);
     expect((parse(csv.text, { columns: true }) as { id: string }[]).map((row) => row.id)).toEqual([buildId]);
     await client.get('/export/nothing.csv').expect(404);
+  });
+
+  it('should export the records of the photos, with the keys of their files in the photo store', async () => {
+    const server = await testServer();
+    const owner = await makeAccount(server.ctx, 'Oren');
+    const workshopId = (await makeWorkshop(server.ctx, owner)).id;
+    const { photoId } = await makeRecords(server.ctx, owner, workshopId);
+    const client = api(server, owner, workshopId);
+
+    const json = await client.get('/export.json').expect(200);
+    const csv = await client.get('/export/photos.csv').expect(200);
+
+    expect(json.body.tables.photos).toEqual([
+      jasmine.objectContaining({ id: photoId, caption: 'Dry fit', displayKey: jasmine.stringContaining(photoId) }),
+    ]);
+    const rows = parse(csv.text, { columns: true }) as { id: string }[];
+    expect(rows.map((row) => row.id)).toEqual([photoId]);
   });
 });
