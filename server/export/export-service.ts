@@ -1,5 +1,6 @@
 import { stringify } from 'csv-stringify/sync';
 import { eq } from 'drizzle-orm';
+import type { ExportTableName } from '../../shared/export-tables.js';
 import type { ServerContext } from '../context.js';
 import { AppError } from '../core/app-error.js';
 import {
@@ -24,7 +25,7 @@ export const EXPORT_TABLES = {
   pours,
   /** The records of the photos; the keys name their files in the photo store, for a backup kept beside it. */
   photos,
-} as const;
+} as const satisfies Record<ExportTableName, unknown>;
 export type ExportTable = keyof typeof EXPORT_TABLES;
 
 async function rowsOf(ctx: ServerContext, workshopId: string, name: ExportTable) {

@@ -124,6 +124,15 @@ describe('WorkshopPage', () => {
       expect(await loader.getAllHarnesses(MatSelectHarness.with({ ancestor: 'bt-member-list' }))).toHaveSize(2);
     });
 
+    it('should offer the whole record to download, as JSON and a CSV per table', () => {
+      const link = (name: string) => query(`[data-export="${name}"]`) as HTMLAnchorElement;
+      expect(link('json').getAttribute('href')).toBe('/api/workshops/w-river/export.json');
+      expect(link('json').getAttribute('download')).toBe('benchtide-river-club-record.json');
+      expect(link('ledger').textContent?.trim()).toBe('Stock book');
+      expect(link('photos').getAttribute('href')).toBe('/api/workshops/w-river/export/photos.csv');
+      expect(fixture.nativeElement.querySelectorAll('[data-export]').length).toBe(8);
+    });
+
     it('should show the invitations and the invite form', async () => {
       expect(text('[data-invitation="i-cy"] .email')).toBe('cy@example.org');
       expect(await loader.getHarnessOrNull(MatButtonHarness.with({ text: 'Send invitation' }))).not.toBeNull();
@@ -256,8 +265,9 @@ describe('WorkshopPage', () => {
       expect(await loader.getHarnessOrNull(MatButtonHarness.with({ text: 'Remove' }))).toBeNull();
     });
 
-    it('should hide the invitations and the rename button', async () => {
+    it('should hide the invitations, the rename button and the record downloads', async () => {
       expect(query('bt-invitation-list')).toBeNull();
+      expect(query('bt-record-export')).toBeNull();
       expect(await loader.getHarnessOrNull(MatButtonHarness.with({ text: 'Send invitation' }))).toBeNull();
       expect(await loader.getHarnessOrNull(MatButtonHarness.with({ text: 'Rename' }))).toBeNull();
     });

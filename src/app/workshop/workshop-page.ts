@@ -14,6 +14,7 @@ import { fieldMessage, Submission } from '../core/submission';
 import { InvitationList } from './invitation-list';
 import { MemberList } from './member-list';
 import { NewWorkshopForm } from './new-workshop-form';
+import { RecordExport } from './record-export';
 import { ROLE_DUTIES, ROLE_LABELS } from './roles';
 import { WorkshopRoster } from './workshop-roster';
 import { Workshops } from './workshops';
@@ -37,6 +38,7 @@ import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';
     ProblemNote,
     MemberList,
     InvitationList,
+    RecordExport,
     NewWorkshopForm,
   ],
   providers: [WorkshopRoster, ROOMY_FORM_FIELDS],
@@ -52,6 +54,7 @@ export class WorkshopPage {
   protected readonly allWorkshops = this.session.workshops;
   protected readonly workshop = this.session.currentWorkshop;
   protected readonly owner = computed(() => may(this.workshop()?.role, 'rename'));
+  protected readonly mayExport = computed(() => may(this.workshop()?.role, 'export'));
   protected readonly stale = this.session.stale;
   protected readonly roles = ROLES;
   protected readonly roleLabels = ROLE_LABELS;
