@@ -64,15 +64,17 @@ export async function startReminderJobs(
   });
   boss.on('error', (error) => ctx.log.error({ err: error }, 'reminder queue trouble'));
   await boss.start();
-  for (const name of [REMINDER_QUEUE, DIGEST_QUEUE]) {
-    // No retries: a lost or failed tick's work is what the next minute's tick does anyway.
-    const queue = { name, policy: 'singleton', expireInSeconds: lost.tickExpirySeconds, retryLimit: 0 } as const;
-    await boss.createQueue(name, queue);
-    // A queue made by an earlier version keeps its old settings unless told.
-    await boss.updateQueue(name, queue);
-  }
-  await boss.schedule(REMINDER_QUEUE, '* * * * *');
-  await boss.schedule(DIGEST_QUEUE, '0 8 * * 1', {}, { tz: 'UTC' });
+  await oneProcessAtATime(ctx, async () => {
+    for (const name of [REMINDER_QUEUE, DIGEST_QUEUE]) {
+      // No retries: a lost or failed tick's work is what the next minute's tick does anyway.
+      const queue = { name, policy: 'singleton', expireInSeconds: lost.tickExpirySeconds, retryLimit: 0 } as const;
+      await boss.createQueue(name, queue);
+      // A queue made by an earlier version keeps its old settings unless told.
+      await boss.updateQueue(name, queue);
+    }
+    await boss.schedule(REMINDER_QUEUE, '* * * * *');
+    await boss.schedule(DIGEST_QUEUE, '0 8 * * 1', {}, { tz: 'UTC' });
+  });
   const sending = await sendingFor(ctx);
   await boss.work(REMINDER_QUEUE, { pollingIntervalSeconds }, async () => {
     await runDueReminders(ctx, sending);
@@ -82,4 +84,23 @@ export async function startReminderJobs(
     await runDueReminders(ctx, sending);
   });
   return { boss, stop: () => boss.stop({ graceful: true, wait: true, timeout: 10_000 }) };
+}
+
+/** Any fixed number: the advisory lock the API processes take to set the queues up. */
+const QUEUE_SETUP_LOCK = 7_305_421_961;
+
+/**
+ * pg-boss makes a queue's table and its constraints in one function that deadlocks when two
+ * processes make the same queue at once (a fresh database, every process starting together), and the
+ * loser would exit. The set-up is quick, so the processes take turns under an advisory lock.
+ */
+async function oneProcessAtATime(ctx: ServerContext, work: () => Promise<void>): Promise<void> {
+  const client = await ctx.pool.connect();
+  try {
+    await client.query('SELECT pg_advisory_lock($1)', [QUEUE_SETUP_LOCK]);
+    await work();
+  } finally {
+    await client.query('SELECT pg_advisory_unlock($1)', [QUEUE_SETUP_LOCK]).catch(() => undefined);
+    client.release();
+  }
 }
