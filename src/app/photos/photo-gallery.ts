@@ -8,7 +8,8 @@ import { BuildPhotos, type BuildPhoto, type PickedPhoto } from './build-photos';
 import { PhotoPicker } from './photo-picker';
 import { PhotoThumb } from './photo-thumb';
 import { openPhotoViewer } from './photo-viewer';
-import { photoAlt, storeProblem, UPLOAD_ICON, uploadStatus } from './photo-words';
+import { PhotoStoring, photoTile } from './photo-storing';
+import { UPLOAD_ICON } from './photo-words';
 
 /**
  * A build's photos, newest first, each with where its upload stands; builders add photos here, send a
@@ -33,27 +34,20 @@ export class PhotoGallery {
   protected readonly icons = UPLOAD_ICON;
   protected readonly tiles = computed(() =>
     this.entries().map((entry) => ({
-      ...entry,
-      alt: photoAlt(entry.photo, this.build().name),
-      status: entry.upload ? uploadStatus(entry.upload) : null,
+      ...photoTile(entry, this.build().name),
       cover: this.build().coverPhotoId === entry.photo.id,
     })),
   );
+  private readonly storing = new PhotoStoring();
   /** How many photos are being stored on this device now. */
-  protected readonly saving = signal(0);
-  protected readonly problem = signal<string | null>(null);
+  protected readonly saving = this.storing.saving;
+  protected readonly problem = this.storing.problem;
   protected readonly confirmingDiscard = signal<string | null>(null);
 
   protected async add(picked: PickedPhoto[]): Promise<void> {
-    this.problem.set(null);
-    this.saving.set(picked.length);
-    try {
-      await this.photos.add(this.workshopId(), { buildId: this.build().id }, picked);
-    } catch (error) {
-      this.problem.set(storeProblem(error));
-    } finally {
-      this.saving.set(0);
-    }
+    await this.storing.store(picked.length, () =>
+      this.photos.add(this.workshopId(), { buildId: this.build().id }, picked),
+    );
   }
 
   protected open(entry: BuildPhoto): void {

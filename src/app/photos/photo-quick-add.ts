@@ -9,7 +9,7 @@ import { WorkshopNeeded } from '../builds/workshop-needed';
 import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';
 import type { PickedPhoto } from './build-photos';
 import { PhotoPicker } from './photo-picker';
-import { storeProblem } from './photo-words';
+import { PhotoStoring } from './photo-storing';
 
 /** What was just added, for the note that says so. */
 interface Added {
@@ -76,8 +76,9 @@ export class PhotoQuickAdd {
   protected readonly chosenName = computed(
     () => this.builds().find((build) => build.id === this.chosenId())?.name ?? '',
   );
-  protected readonly saving = signal(false);
-  protected readonly problem = signal<string | null>(null);
+  private readonly storing = new PhotoStoring();
+  protected readonly saving = this.storing.saving;
+  protected readonly problem = this.storing.problem;
   protected readonly added = signal<Added | null>(null);
 
   protected choose(buildId: string): void {
@@ -87,16 +88,9 @@ export class PhotoQuickAdd {
   protected async add(picked: PickedPhoto[]): Promise<void> {
     const buildId = this.chosenId();
     if (buildId === null) return;
-    this.problem.set(null);
     this.added.set(null);
-    this.saving.set(true);
-    try {
-      await this.log.addPhotos({ buildId }, picked);
+    if (await this.storing.store(picked.length, () => this.log.addPhotos({ buildId }, picked))) {
       this.added.set({ buildId, buildName: this.chosenName(), count: picked.length });
-    } catch (error) {
-      this.problem.set(storeProblem(error));
-    } finally {
-      this.saving.set(false);
     }
   }
 }

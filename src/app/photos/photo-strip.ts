@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, input } from '@angular/core';
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
@@ -7,7 +7,8 @@ import { BuildPhotos, type BuildPhoto, type PhotoTarget, type PickedPhoto } from
 import { PhotoPicker } from './photo-picker';
 import { PhotoThumb } from './photo-thumb';
 import { openPhotoViewer } from './photo-viewer';
-import { photoAlt, storeProblem, UPLOAD_ICON, uploadStatus } from './photo-words';
+import { PhotoStoring, photoTile } from './photo-storing';
+import { UPLOAD_ICON } from './photo-words';
 
 /**
  * The photos of one step or pour as small thumbnails in the build log, each opening large on a tap; with a
@@ -120,26 +121,13 @@ export class PhotoStrip {
   readonly subject = input('');
 
   protected readonly icons = UPLOAD_ICON;
-  protected readonly tiles = computed(() =>
-    this.entries().map((entry) => ({
-      ...entry,
-      alt: photoAlt(entry.photo, this.build().name),
-      status: entry.upload ? uploadStatus(entry.upload) : null,
-    })),
-  );
-  protected readonly saving = signal(0);
-  protected readonly problem = signal<string | null>(null);
+  protected readonly tiles = computed(() => this.entries().map((entry) => photoTile(entry, this.build().name)));
+  private readonly storing = new PhotoStoring();
+  protected readonly saving = this.storing.saving;
+  protected readonly problem = this.storing.problem;
 
   protected async add(target: PhotoTarget, picked: PickedPhoto[]): Promise<void> {
-    this.problem.set(null);
-    this.saving.set(picked.length);
-    try {
-      await this.photos.add(this.workshopId(), target, picked);
-    } catch (error) {
-      this.problem.set(storeProblem(error));
-    } finally {
-      this.saving.set(0);
-    }
+    await this.storing.store(picked.length, () => this.photos.add(this.workshopId(), target, picked));
   }
 
   protected open(entry: BuildPhoto): void {
