@@ -1,4 +1,13 @@
 import { inject, Injectable } from '@angular/core';
+import type {
+  buildPatchSchema,
+  containerPatchSchema,
+  materialPatchSchema,
+  photoPatchSchema,
+  stepPatchSchema,
+  stocktakeSchema,
+  wasteSchema,
+} from '@benchtide/shared';
 import {
   costOfUseMinor,
   drawForPour,
@@ -22,11 +31,11 @@ import { remainingOnDevice } from './device-stock';
 import { discardChange } from './discard-change';
 import { insertRecords, ledgerEntry, patchRecord, softDelete, type NewFields } from './record-writes';
 import type { RecordUndo, SyncedTableName } from './synced-records';
-import { writeChecks, type WriteChecks } from './write-checks';
+import { writeChecks } from './write-checks';
 
 /** A new record as a form gives it: the id is made here unless the caller made it already. */
 type Draft<T> = Omit<T, 'id'> & { id?: string };
-type Input<K extends keyof WriteChecks> = WriteChecks[K] extends z.ZodType ? z.input<WriteChecks[K]> : never;
+type Input<T extends z.ZodType> = z.input<T>;
 
 const MATERIAL_NOT_HERE =
   'The material of this pour is not on this device. Sync this workshop, then log the pour again; nothing was saved.';
@@ -91,7 +100,7 @@ export class OfflineStore {
     const data = (await writeChecks()).newBuildSchema.parse(withId(draft));
     return this.create(workshopId, { type: 'build.create', mutationId: v7(), data }, [['builds', data]]);
   }
-  async patchBuild(workshopId: string, id: string, patch: Input<'buildPatchSchema'>): Promise<void> {
+  async patchBuild(workshopId: string, id: string, patch: Input<typeof buildPatchSchema>): Promise<void> {
     const data = (await writeChecks()).buildPatchSchema.parse(patch);
     return this.patch(workshopId, 'builds', { type: 'build.patch', mutationId: v7(), recordId: id, data });
   }
@@ -103,7 +112,7 @@ export class OfflineStore {
     const data = (await writeChecks()).newStepSchema.parse(withId(draft));
     return this.create(workshopId, { type: 'step.create', mutationId: v7(), data }, [['steps', data]]);
   }
-  async patchStep(workshopId: string, id: string, patch: Input<'stepPatchSchema'>): Promise<void> {
+  async patchStep(workshopId: string, id: string, patch: Input<typeof stepPatchSchema>): Promise<void> {
     const data = (await writeChecks()).stepPatchSchema.parse(patch);
     return this.patch(workshopId, 'steps', { type: 'step.patch', mutationId: v7(), recordId: id, data });
   }
@@ -115,7 +124,7 @@ export class OfflineStore {
     const data = (await writeChecks()).newMaterialSchema.parse(withId(draft));
     return this.create(workshopId, { type: 'material.create', mutationId: v7(), data }, [['materials', data]]);
   }
-  async patchMaterial(workshopId: string, id: string, patch: Input<'materialPatchSchema'>): Promise<void> {
+  async patchMaterial(workshopId: string, id: string, patch: Input<typeof materialPatchSchema>): Promise<void> {
     const data = (await writeChecks()).materialPatchSchema.parse(patch);
     return this.patch(workshopId, 'materials', { type: 'material.patch', mutationId: v7(), recordId: id, data });
   }
@@ -133,7 +142,7 @@ export class OfflineStore {
       ['ledgerEntries', purchase],
     ]);
   }
-  async patchContainer(workshopId: string, id: string, patch: Input<'containerPatchSchema'>): Promise<void> {
+  async patchContainer(workshopId: string, id: string, patch: Input<typeof containerPatchSchema>): Promise<void> {
     const data = (await writeChecks()).containerPatchSchema.parse(patch);
     return this.patch(workshopId, 'containers', { type: 'container.patch', mutationId: v7(), recordId: id, data });
   }
@@ -142,7 +151,7 @@ export class OfflineStore {
   }
 
   /** Shown at once, costed from this device's copy of the container; the server's entry replaces it on pull. */
-  async recordWaste(workshopId: string, containerId: string, draft: Draft<Input<'wasteSchema'>>): Promise<string> {
+  async recordWaste(workshopId: string, containerId: string, draft: Draft<Input<typeof wasteSchema>>): Promise<string> {
     const data = (await writeChecks()).wasteSchema.parse(withId(draft));
     const mutation: Mutation = { type: 'container.waste', mutationId: v7(), recordId: containerId, data };
     await this.apply(workshopId, mutation, async (now) => {
@@ -160,7 +169,7 @@ export class OfflineStore {
   async recordStocktake(
     workshopId: string,
     containerId: string,
-    draft: Draft<Input<'stocktakeSchema'>>,
+    draft: Draft<Input<typeof stocktakeSchema>>,
   ): Promise<string> {
     const data = (await writeChecks()).stocktakeSchema.parse(withId(draft));
     const mutation: Mutation = { type: 'container.stocktake', mutationId: v7(), recordId: containerId, data };
@@ -210,7 +219,7 @@ export class OfflineStore {
   }
 
   /** For a photo the server holds; one whose upload still waits is changed with its upload instead. */
-  async patchPhoto(workshopId: string, id: string, patch: Input<'photoPatchSchema'>): Promise<void> {
+  async patchPhoto(workshopId: string, id: string, patch: Input<typeof photoPatchSchema>): Promise<void> {
     const data = (await writeChecks()).photoPatchSchema.parse(patch);
     return this.patch(workshopId, 'photos', { type: 'photo.patch', mutationId: v7(), recordId: id, data });
   }

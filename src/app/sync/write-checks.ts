@@ -1,6 +1,6 @@
 import type * as Checks from './write-check-schemas';
 
-export type WriteChecks = typeof Checks;
+type WriteChecks = typeof Checks;
 
 let loaded: WriteChecks | undefined;
 
