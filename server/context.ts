@@ -1,5 +1,4 @@
 import type { Logger } from 'pino';
-import type { Role } from '../shared/account-schemas.js';
 import type pg from 'pg';
 import type { SessionStore } from './auth/session-store.js';
 import type { ServerConfig } from './config.js';
@@ -18,11 +17,4 @@ export interface ServerContext {
   sessions: SessionStore;
   photos: PhotoStore;
   log: Logger;
-  /**
-   * Set while a sync push applies a batch: the caller's role, checked once, and the change
-   * number the whole batch shares (it commits as one). Writes then run in the batch's
-   * transaction instead of opening their own. Work that must wait for the commit (removing a
-   * deleted photo's files) is queued in afterCommit.
-   */
-  batch?: { role: Role; changeNumber: number; afterCommit: (() => Promise<void>)[] };
 }

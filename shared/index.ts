@@ -2,7 +2,7 @@ export * from './account-schemas.js';
 export * from './cure.js';
 export * from './cost-summary.js';
 export * from './domain-schemas.js';
-export * from './export-tables.js';
+export * from './record-kinds.js';
 export * from './format.js';
 export * from './layers.js';
 export * from './ledger.js';

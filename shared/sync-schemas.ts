@@ -4,51 +4,51 @@
  * at most once (its id is remembered); changes are pulled by the workshop's change number.
  */
 import * as z from 'zod';
+import * as domainSchemas from './domain-schemas.js';
+import * as photoSchemas from './photo-schemas.js';
 import {
-  buildPatchSchema,
-  containerPatchSchema,
-  materialPatchSchema,
-  newBuildSchema,
-  newContainerSchema,
-  newMaterialSchema,
-  newPourSchema,
-  newStepSchema,
-  stepPatchSchema,
-  stocktakeSchema,
-  wasteSchema,
-} from './domain-schemas.js';
-import { photoPatchSchema } from './photo-schemas.js';
+  CHANGE_TYPES,
+  type ChangeName,
+  type ChangeSpecOf,
+  type RecordSchemaName,
+  type SyncedEntity,
+} from './record-kinds.js';
 
 const mutationId = z.uuid({ error: 'A change needs an id made by the app' });
 const recordId = z.uuid({ error: 'A change must name the record it changes' });
 
-/** What a device may change, one variant per kind of write. */
-export const mutationSchema = z.discriminatedUnion(
-  'type',
-  [
-    z.object({ type: z.literal('build.create'), mutationId, data: newBuildSchema }),
-    z.object({ type: z.literal('build.patch'), mutationId, recordId, data: buildPatchSchema }),
-    z.object({ type: z.literal('build.delete'), mutationId, recordId }),
-    z.object({ type: z.literal('step.create'), mutationId, data: newStepSchema }),
-    z.object({ type: z.literal('step.patch'), mutationId, recordId, data: stepPatchSchema }),
-    z.object({ type: z.literal('step.delete'), mutationId, recordId }),
-    z.object({ type: z.literal('material.create'), mutationId, data: newMaterialSchema }),
-    z.object({ type: z.literal('material.patch'), mutationId, recordId, data: materialPatchSchema }),
-    z.object({ type: z.literal('material.delete'), mutationId, recordId }),
-    z.object({ type: z.literal('container.create'), mutationId, data: newContainerSchema }),
-    z.object({ type: z.literal('container.patch'), mutationId, recordId, data: containerPatchSchema }),
-    z.object({ type: z.literal('container.delete'), mutationId, recordId }),
-    z.object({ type: z.literal('container.waste'), mutationId, recordId, data: wasteSchema }),
-    z.object({ type: z.literal('container.stocktake'), mutationId, recordId, data: stocktakeSchema }),
-    z.object({ type: z.literal('pour.create'), mutationId, data: newPourSchema }),
-    z.object({ type: z.literal('pour.delete'), mutationId, recordId }),
-    z.object({ type: z.literal('photo.patch'), mutationId, recordId, data: photoPatchSchema }),
-    z.object({ type: z.literal('photo.delete'), mutationId, recordId }),
-  ],
-  { error: 'Unknown kind of change' },
-);
+const SCHEMAS = { ...domainSchemas, ...photoSchemas };
+type Schemas = typeof SCHEMAS;
+
+/** The shared schema a change's data is checked with, by the name the registry gives it. */
+export function recordSchema<N extends RecordSchemaName>(name: N): Schemas[N] {
+  return SCHEMAS[name];
+}
+
+type DataOf<K extends SyncedEntity, C extends ChangeName<K>> =
+  ChangeSpecOf<K, C> extends { data: infer N extends RecordSchemaName } ? { data: Schemas[N] } : Record<never, never>;
+type ChangeShape<K extends SyncedEntity, C extends ChangeName<K>> = {
+  type: z.ZodLiteral<`${K}.${C}`>;
+  mutationId: typeof mutationId;
+} & (C extends 'create' ? Record<never, never> : { recordId: typeof recordId }) &
+  DataOf<K, C>;
+type ChangeObject = {
+  [K in SyncedEntity]: { [C in ChangeName<K>]: z.ZodObject<ChangeShape<K, C>> }[ChangeName<K>];
+}[SyncedEntity];
+
+const CHANGE_OBJECTS = CHANGE_TYPES.map(({ type, change, spec }) =>
+  z.object({
+    type: z.literal(type),
+    mutationId,
+    ...(change === 'create' ? {} : { recordId }),
+    ...('data' in spec && spec.data ? { data: recordSchema(spec.data) } : {}),
+  }),
+) as unknown as [ChangeObject, ...ChangeObject[]];
+
+/** What a device may change, one variant per kind of change in the registry (record-kinds.ts). */
+export const mutationSchema = z.discriminatedUnion('type', CHANGE_OBJECTS, { error: 'Unknown kind of change' });
 export type Mutation = z.input<typeof mutationSchema>;
-export type MutationType = Mutation['type'];
+export type ParsedMutation = z.output<typeof mutationSchema>;
 
 export const MAX_PUSH = 200;
 
@@ -78,9 +78,6 @@ export interface PushAnswer {
   readonly results: readonly MutationResult[];
 }
 
-export const SYNCED_ENTITIES = ['build', 'step', 'material', 'container', 'ledgerEntry', 'pour', 'photo'] as const;
-export type SyncedEntity = (typeof SYNCED_ENTITIES)[number];
-
 /** One changed record; `record.deletedAt` set means a tombstone. */
 export interface PulledChange {
   readonly entity: SyncedEntity;
@@ -103,3 +100,20 @@ export type PullAnswer =
       readonly more: boolean;
     }
   | { readonly startOver: true; readonly reason: string };
+
+/** The data of a change as a form gives it, and as it is once checked. */
+export type ChangeData<K extends SyncedEntity, C extends ChangeName<K>> =
+  Extract<Mutation, { type: `${K}.${C}` }> extends { data: infer D } ? D : never;
+export type CheckedChangeData<K extends SyncedEntity, C extends ChangeName<K>> =
+  Extract<ParsedMutation, { type: `${K}.${C}` }> extends { data: infer D } ? D : never;
+
+/** Checks a change's data with the schema the registry names for it; throws the schema's error when it is wrong. */
+export function checkChangeData<K extends SyncedEntity, C extends ChangeName<K>>(
+  kind: K,
+  change: C,
+  data: unknown,
+): CheckedChangeData<K, C> {
+  const spec = CHANGE_TYPES.find((entry) => entry.kind === kind && entry.change === change)?.spec;
+  if (!spec?.data) throw new Error(`A ${kind} ${change} carries no data.`);
+  return recordSchema(spec.data).parse(data) as CheckedChangeData<K, C>;
+}

@@ -1,3 +1,4 @@
+import { writeRecords } from '../records/unit-of-work.js';
 import { Router } from 'express';
 import { buildPatchSchema, newBuildSchema, newStepSchema, stepPatchSchema } from '../../shared/domain-schemas.js';
 import { signedIn } from '../auth/session-middleware.js';
@@ -26,7 +27,9 @@ export function buildRoutes(ctx: ServerContext): Router {
   });
   router.post(`${base}/builds`, async (req, res) => {
     const input = validate(newBuildSchema, req.body);
-    res.status(201).json(await createBuild(ctx, signedIn(res).user.id, pathId(req.params['workshopId']), input));
+    res
+      .status(201)
+      .json(await writeRecords(ctx, signedIn(res).user.id, pathId(req.params['workshopId']), createBuild, input));
   });
   router.get(`${base}/builds/:buildId`, async (req, res) => {
     res.json(
@@ -42,17 +45,25 @@ export function buildRoutes(ctx: ServerContext): Router {
   router.patch(`${base}/builds/:buildId`, async (req, res) => {
     const patch = validate(buildPatchSchema, req.body);
     res.json(
-      await updateBuild(
+      await writeRecords(
         ctx,
         signedIn(res).user.id,
         pathId(req.params['workshopId']),
+        updateBuild,
         pathId(req.params['buildId']),
         patch,
       ),
     );
   });
   router.delete(`${base}/builds/:buildId`, async (req, res) => {
-    await deleteBuild(ctx, signedIn(res).user.id, pathId(req.params['workshopId']), pathId(req.params['buildId']));
+    await writeRecords(
+      ctx,
+      signedIn(res).user.id,
+      pathId(req.params['workshopId']),
+      deleteBuild,
+      pathId(req.params['buildId']),
+      ctx,
+    );
     res.status(204).end();
   });
 
@@ -64,22 +75,31 @@ export function buildRoutes(ctx: ServerContext): Router {
   });
   router.post(`${base}/steps`, async (req, res) => {
     const input = validate(newStepSchema, req.body);
-    res.status(201).json(await createStep(ctx, signedIn(res).user.id, pathId(req.params['workshopId']), input));
+    res
+      .status(201)
+      .json(await writeRecords(ctx, signedIn(res).user.id, pathId(req.params['workshopId']), createStep, input));
   });
   router.patch(`${base}/steps/:stepId`, async (req, res) => {
     const patch = validate(stepPatchSchema, req.body);
     res.json(
-      await updateStep(
+      await writeRecords(
         ctx,
         signedIn(res).user.id,
         pathId(req.params['workshopId']),
+        updateStep,
         pathId(req.params['stepId']),
         patch,
       ),
     );
   });
   router.delete(`${base}/steps/:stepId`, async (req, res) => {
-    await deleteStep(ctx, signedIn(res).user.id, pathId(req.params['workshopId']), pathId(req.params['stepId']));
+    await writeRecords(
+      ctx,
+      signedIn(res).user.id,
+      pathId(req.params['workshopId']),
+      deleteStep,
+      pathId(req.params['stepId']),
+    );
     res.status(204).end();
   });
 

@@ -1,3 +1,4 @@
+import { writeRecords } from '../records/unit-of-work.js';
 import { subDays, formatISO } from 'date-fns';
 import { v7 } from 'uuid';
 import { findMaterialPreset } from '../../shared/material-presets.js';
@@ -30,7 +31,7 @@ export async function seedDemoBench(
     harbour: v7(),
     ford: v7(),
   };
-  await createBuild(ctx, ownerId, workshopId, {
+  await writeRecords(ctx, ownerId, workshopId, createBuild, {
     id: builds.millRace,
     name: 'Mill race at Fernhollow',
     scaleRatio: 87.1,
@@ -40,7 +41,7 @@ export async function seedDemoBench(
     status: 'building',
     notes: 'Overshot wheel and a tail race in three thin layers.',
   });
-  await createBuild(ctx, builderId, workshopId, {
+  await writeRecords(ctx, builderId, workshopId, createBuild, {
     id: builds.harbour,
     name: 'Low tide harbour',
     scaleRatio: 160,
@@ -50,7 +51,7 @@ export async function seedDemoBench(
     status: 'building',
     notes: 'Harbour wall, mud flats and a slipway.',
   });
-  await createBuild(ctx, ownerId, workshopId, {
+  await writeRecords(ctx, ownerId, workshopId, createBuild, {
     id: builds.ford,
     name: 'Ford in spring flood',
     scaleRatio: 35,
@@ -63,7 +64,7 @@ export async function seedDemoBench(
 
   const materials = { deepPour: v7(), coating: v7(), gel: v7() };
   const preset = (id: string) => findMaterialPreset(id)!.dataSheet;
-  await createMaterial(ctx, ownerId, workshopId, {
+  await writeRecords(ctx, ownerId, workshopId, createMaterial, {
     id: materials.deepPour,
     name: 'Deep-pour epoxy (demo)',
     kind: 'two-part-epoxy',
@@ -71,7 +72,7 @@ export async function seedDemoBench(
     shelfLifeOpenedDays: 180,
     safetySheet: 'Paper copy in the red folder by the bench',
   });
-  await createMaterial(ctx, ownerId, workshopId, {
+  await writeRecords(ctx, ownerId, workshopId, createMaterial, {
     id: materials.coating,
     name: 'Coating epoxy (demo)',
     kind: 'two-part-epoxy',
@@ -79,7 +80,7 @@ export async function seedDemoBench(
     shelfLifeOpenedDays: 365,
     safetySheet: '',
   });
-  await createMaterial(ctx, ownerId, workshopId, {
+  await writeRecords(ctx, ownerId, workshopId, createMaterial, {
     id: materials.gel,
     name: 'Ripple gel (demo)',
     kind: 'water-gel',
@@ -97,7 +98,7 @@ export async function seedDemoBench(
     extra = {},
   ) => {
     const id = v7();
-    await createContainer(ctx, ownerId, workshopId, {
+    await writeRecords(ctx, ownerId, workshopId, createContainer, {
       id,
       materialId,
       part,
@@ -124,7 +125,7 @@ export async function seedDemoBench(
     notes = '',
   ) => {
     const id = v7();
-    await createStep(ctx, ownerId, workshopId, {
+    await writeRecords(ctx, ownerId, workshopId, createStep, {
       id,
       buildId,
       kind,
@@ -155,7 +156,7 @@ export async function seedDemoBench(
     roomTempC: number,
   ) => {
     const stepId = await step(buildId, 'water-pour', stepTitle, days);
-    await createPour(ctx, builderId, workshopId, {
+    await writeRecords(ctx, builderId, workshopId, createPour, {
       id: v7(),
       buildId,
       stepId,
@@ -192,5 +193,9 @@ export async function seedDemoBench(
     18,
   );
   await pour(builds.millRace, materials.deepPour, 'Mill race, top layer', 0, race, 5, 20);
-  await recordWaste(ctx, ownerId, workshopId, gel, { id: v7(), quantity: 15, note: 'Skinned over in the jar' });
+  await writeRecords(ctx, ownerId, workshopId, recordWaste, gel, {
+    id: v7(),
+    quantity: 15,
+    note: 'Skinned over in the jar',
+  });
 }

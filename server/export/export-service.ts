@@ -1,32 +1,21 @@
 import { stringify } from 'csv-stringify/sync';
 import { eq } from 'drizzle-orm';
-import type { ExportTableName } from '../../shared/export-tables.js';
+import { RECORD_KINDS, type ExportTableName } from '../../shared/record-kinds.js';
 import type { ServerContext } from '../context.js';
 import { AppError } from '../core/app-error.js';
-import {
-  builds,
-  buildSteps,
-  containers,
-  ledgerEntries,
-  materials,
-  photos,
-  pours,
-  workshops,
-} from '../db/schema/index.js';
+import { workshops } from '../db/schema/index.js';
+import type { SyncedTable } from '../records/synced-records.js';
+import { RECORD_SERVICES } from '../sync/record-services.js';
 import { authorize } from '../workshops/workshop-service.js';
 
-/** The tables a workshop's record is made of, by the name they carry in an export. */
-export const EXPORT_TABLES = {
-  builds,
-  steps: buildSteps,
-  materials,
-  containers,
-  ledger: ledgerEntries,
-  pours,
-  /** The records of the photos; the keys name their files in the photo store, for a backup kept beside it. */
-  photos,
-} as const satisfies Record<ExportTableName, unknown>;
-export type ExportTable = keyof typeof EXPORT_TABLES;
+/**
+ * The tables a workshop's record is made of, by the name they carry in an export. The photos' rows keep
+ * the keys that name their files in the photo store, for a backup kept beside it.
+ */
+export const EXPORT_TABLES: Readonly<Record<ExportTableName, SyncedTable>> = Object.fromEntries(
+  RECORD_SERVICES.map(({ kind, table }) => [RECORD_KINDS[kind].export.name, table]),
+) as Record<ExportTableName, SyncedTable>;
+export type ExportTable = ExportTableName;
 
 async function rowsOf(ctx: ServerContext, workshopId: string, name: ExportTable) {
   const table = EXPORT_TABLES[name];

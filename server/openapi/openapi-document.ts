@@ -34,7 +34,8 @@ import {
   stocktakeSchema,
   wasteSchema,
 } from '../../shared/domain-schemas.js';
-import { pullQuerySchema, pushRequestSchema } from '../../shared/sync-schemas.js';
+import { CHANGE_TYPES } from '../../shared/record-kinds.js';
+import { pullQuerySchema, pushRequestSchema, recordSchema } from '../../shared/sync-schemas.js';
 import { may, type WorkshopAction } from '../../shared/workshop-policy.js';
 import { SESSION_COOKIE } from '../auth/lucia-session-store.js';
 import { EXPORT_TABLES } from '../export/export-service.js';
@@ -124,17 +125,12 @@ const BODY_NAMES = new Map<z.ZodType, string>([
   [workshopRequestSchema, 'WorkshopRequest'],
   [memberRoleRequestSchema, 'MemberRoleRequest'],
   [invitationRequestSchema, 'InvitationRequest'],
-  [newBuildSchema, 'NewBuild'],
-  [buildPatchSchema, 'BuildPatch'],
-  [newStepSchema, 'NewStep'],
-  [stepPatchSchema, 'StepPatch'],
-  [newMaterialSchema, 'NewMaterial'],
-  [materialPatchSchema, 'MaterialPatch'],
-  [newContainerSchema, 'NewContainer'],
-  [containerPatchSchema, 'ContainerPatch'],
-  [wasteSchema, 'Waste'],
-  [stocktakeSchema, 'Stocktake'],
-  [newPourSchema, 'NewPour'],
+  // A change's data goes by its schema's name: newBuildSchema is NewBuild.
+  ...CHANGE_TYPES.flatMap(({ spec }): [z.ZodType, string][] =>
+    'data' in spec && spec.data
+      ? [[recordSchema(spec.data), spec.data.replace(/Schema$/, '').replace(/^./, (first) => first.toUpperCase())]]
+      : [],
+  ),
   [pushRequestSchema, 'PushRequest'],
   ...PHOTO_BODY_NAMES,
   ...REMINDER_BODY_NAMES,

@@ -8,7 +8,7 @@ import { photos } from '../db/schema/index.js';
 import type { Transaction } from '../records/change-stamp.js';
 import type { RecordKind } from '../records/synced-records.js';
 
-export const PHOTO: RecordKind = { table: photos, noun: 'photo' };
+export const PHOTO: RecordKind<typeof photos> = { table: photos, noun: 'photo' };
 
 export type PhotoRow = typeof photos.$inferSelect;
 
@@ -63,7 +63,7 @@ export async function copyKeysOf(db: Database | Transaction, workshopIds: readon
  * Removes stored copies no record needs any more. A copy that cannot be removed now is left
  * behind and logged: the write it follows has committed and stands.
  */
-export async function removeCopies(ctx: ServerContext, keys: readonly string[]): Promise<void> {
+export async function removeCopies(ctx: Pick<ServerContext, 'photos' | 'log'>, keys: readonly string[]): Promise<void> {
   for (const key of keys) {
     try {
       await ctx.photos.remove(key);

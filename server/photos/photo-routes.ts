@@ -1,3 +1,4 @@
+import { writeRecords } from '../records/unit-of-work.js';
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import { pipeline } from 'node:stream/promises';
@@ -101,10 +102,11 @@ export function photoRoutes(ctx: ServerContext): Router {
   router.patch(`${base}/photos/:photoId`, async (req, res) => {
     const patch = validate(photoPatchSchema, req.body);
     res.json(
-      await updatePhoto(
+      await writeRecords(
         ctx,
         signedIn(res).user.id,
         pathId(req.params['workshopId']),
+        updatePhoto,
         pathId(req.params['photoId']),
         patch,
       ),
@@ -112,7 +114,14 @@ export function photoRoutes(ctx: ServerContext): Router {
   });
 
   router.delete(`${base}/photos/:photoId`, async (req, res) => {
-    await deletePhoto(ctx, signedIn(res).user.id, pathId(req.params['workshopId']), pathId(req.params['photoId']));
+    await writeRecords(
+      ctx,
+      signedIn(res).user.id,
+      pathId(req.params['workshopId']),
+      deletePhoto,
+      pathId(req.params['photoId']),
+      ctx,
+    );
     res.status(204).end();
   });
 

@@ -5,18 +5,19 @@ import type { photoPatchSchema, photoUploadFieldsSchema, PhotoRecord } from '../
 import { BUILD, STEP } from '../builds/build-service.js';
 import type { ServerContext } from '../context.js';
 import { AppError } from '../core/app-error.js';
-import { builds, photos } from '../db/schema/index.js';
+import { builds, buildSteps, photos, pours } from '../db/schema/index.js';
 import { POUR } from '../pours/pour-service.js';
 import { stampChange, type Transaction } from '../records/change-stamp.js';
 import {
-  afterCommit,
   getRecord,
   insertRecord,
   listRecords,
   liveRecord,
   patchRecord,
-  writeRecords,
+  type RecordKind,
 } from '../records/synced-records.js';
+import { served } from '../records/served-kind.js';
+import type { UnitOfWork } from '../records/unit-of-work.js';
 import { authorize } from '../workshops/workshop-service.js';
 import { COPY_TYPE, hashOf, makeCopies } from './photo-images.js';
 import { copyKey, PHOTO, photoRecord, removeCopies, tombstonePhotos, type PhotoRow } from './photo-records.js';
@@ -80,7 +81,7 @@ export async function uploadPhoto(
         thumbBytes: copies.thumb.length,
         uploadedBy: userId,
       });
-      return { created: true, row: row as PhotoRow };
+      return { created: true, row };
     } catch (error) {
       await removeCopies(ctx, [display, thumb]);
       throw error;
@@ -116,10 +117,11 @@ function sameUpload(kept: PhotoRow, workshopId: string, contentHash: string): Ph
 /** A photo belongs to a live build, and at most to a live step or pour of that same build. */
 async function checkPlace(tx: Transaction, workshopId: string, fields: UploadFields): Promise<void> {
   await liveRecord(tx, workshopId, BUILD, fields.buildId);
-  for (const [kind, id] of [
+  const parts: [RecordKind<typeof buildSteps | typeof pours>, string | null | undefined][] = [
     [STEP, fields.stepId],
     [POUR, fields.pourId],
-  ] as const) {
+  ];
+  for (const [kind, id] of parts) {
     if (!id) continue;
     const part = await liveRecord(tx, workshopId, kind, id);
     if (part['buildId'] !== fields.buildId) {
@@ -134,7 +136,7 @@ export async function photosOfBuild(ctx: ServerContext, userId: string, workshop
   await getRecord(ctx, userId, workshopId, BUILD, buildId);
   const where = and(eq(photos.buildId, buildId), isNull(photos.deletedAt));
   const rows = await listRecords(ctx, userId, workshopId, PHOTO, where);
-  return (rows as PhotoRow[]).map(photoRecord);
+  return rows.map(photoRecord);
 }
 
 /** One stored copy of a live photo, for a member of its workshop. */
@@ -145,7 +147,7 @@ export async function photoCopy(
   photoId: string,
   size: PhotoSize,
 ): Promise<StoredCopy & { contentType: string }> {
-  const row = (await getRecord(ctx, userId, workshopId, PHOTO, photoId)) as PhotoRow;
+  const row = await getRecord(ctx, userId, workshopId, PHOTO, photoId);
   const copy = await ctx.photos.get(size === 'display' ? row.displayKey : row.thumbKey);
   if (!copy) {
     ctx.log.error({ photoId, size }, 'a photo is recorded but its copy is missing from the store');
@@ -155,27 +157,36 @@ export async function photoCopy(
 }
 
 export async function updatePhoto(
-  ctx: ServerContext,
-  userId: string,
-  workshopId: string,
+  { tx, workshopId, changeNumber }: UnitOfWork,
   id: string,
   patch: PhotoPatch,
 ): Promise<PhotoRecord> {
-  const row = await writeRecords(ctx, userId, workshopId, (tx, changeNumber) =>
-    patchRecord(tx, workshopId, PHOTO, id, patch, changeNumber),
-  );
-  return photoRecord(row as PhotoRow);
+  return photoRecord(await patchRecord(tx, workshopId, PHOTO, id, patch, changeNumber));
 }
 
 /** A tombstone for every device; a build it was the cover of loses its cover; the copies go once that commits. */
-export async function deletePhoto(ctx: ServerContext, userId: string, workshopId: string, id: string): Promise<void> {
-  const keys = await writeRecords(ctx, userId, workshopId, async (tx, changeNumber) => {
-    await liveRecord(tx, workshopId, PHOTO, id);
-    await tx
-      .update(builds)
-      .set({ coverPhotoId: null, updatedAt: new Date(), changeNumber })
-      .where(and(eq(builds.workshopId, workshopId), eq(builds.coverPhotoId, id)));
-    return tombstonePhotos(tx, eq(photos.id, id), changeNumber);
-  });
-  await afterCommit(ctx, () => removeCopies(ctx, keys));
+export async function deletePhoto(
+  work: UnitOfWork,
+  id: string,
+  photoStore: Pick<ServerContext, 'photos' | 'log'>,
+): Promise<void> {
+  const { tx, workshopId, changeNumber } = work;
+  await liveRecord(tx, workshopId, PHOTO, id);
+  await tx
+    .update(builds)
+    .set({ coverPhotoId: null, updatedAt: new Date(), changeNumber })
+    .where(and(eq(builds.workshopId, workshopId), eq(builds.coverPhotoId, id)));
+  const keys = await tombstonePhotos(tx, eq(photos.id, id), changeNumber);
+  work.afterCommit(() => removeCopies(photoStore, keys));
 }
+
+/** Made by an upload; a pushed change edits or deletes one. Devices get the record without its storage keys. */
+export const photoRecords = served({
+  kind: 'photo',
+  table: photos,
+  changes: {
+    patch: (work, m) => updatePhoto(work, m.recordId, m.data),
+    delete: (work, m, ctx) => deletePhoto(work, m.recordId, ctx),
+  },
+  toRecord: (row) => ({ ...photoRecord(row) }),
+});

@@ -1,3 +1,4 @@
+import { writeRecords } from '../records/unit-of-work.js';
 import { Router } from 'express';
 import { newPourSchema } from '../../shared/domain-schemas.js';
 import { signedIn } from '../auth/session-middleware.js';
@@ -20,7 +21,9 @@ export function pourRoutes(ctx: ServerContext): Router {
   });
   router.post(`${base}/pours`, async (req, res) => {
     const input = validate(newPourSchema, req.body);
-    res.status(201).json(await createPour(ctx, signedIn(res).user.id, pathId(req.params['workshopId']), input));
+    res
+      .status(201)
+      .json(await writeRecords(ctx, signedIn(res).user.id, pathId(req.params['workshopId']), createPour, input));
   });
   router.get(`${base}/pours/:pourId`, async (req, res) => {
     res.json(
@@ -28,7 +31,13 @@ export function pourRoutes(ctx: ServerContext): Router {
     );
   });
   router.delete(`${base}/pours/:pourId`, async (req, res) => {
-    await deletePour(ctx, signedIn(res).user.id, pathId(req.params['workshopId']), pathId(req.params['pourId']));
+    await writeRecords(
+      ctx,
+      signedIn(res).user.id,
+      pathId(req.params['workshopId']),
+      deletePour,
+      pathId(req.params['pourId']),
+    );
     res.status(204).end();
   });
 

@@ -4,18 +4,19 @@ import type { newPourSchema } from '../../shared/domain-schemas.js';
 import { drawForPour, stockShortMessage } from '../../shared/pour-draw.js';
 import { planPour, type PourPlan } from '../../shared/pour-plan.js';
 import { BUILD } from '../builds/build-service.js';
-import type { ServerContext } from '../context.js';
 import { AppError } from '../core/app-error.js';
 import { ledgerEntries, pours } from '../db/schema/index.js';
 import type { Transaction } from '../records/change-stamp.js';
-import { insertRecord, liveRecord, tombstone, writeRecords, type RecordKind } from '../records/synced-records.js';
+import { insertRecord, liveRecord, tombstone, type RecordKind } from '../records/synced-records.js';
+import { served } from '../records/served-kind.js';
+import type { UnitOfWork } from '../records/unit-of-work.js';
 import { CONTAINER, LEDGER_ENTRY, MATERIAL } from '../shelf/shelf-service.js';
 import { lockedContainersOf, remainingOf } from '../shelf/stock.js';
 import { uuidv7 } from '../records/ids.js';
 import { cancelReminders, scheduleReminders } from '../reminders/pour-reminder-schedule.js';
 import type { materials } from '../db/schema/index.js';
 
-export const POUR: RecordKind = { table: pours, noun: 'pour' };
+export const POUR: RecordKind<typeof pours> = { table: pours, noun: 'pour' };
 
 type PourInput = z.output<typeof newPourSchema>;
 
@@ -53,7 +54,7 @@ async function drawFromShelf(
     workshopId,
     changeNumber,
     containerId,
-    kind: 'pour-use',
+    kind: 'pour-use' as const,
     quantity: -quantity,
     costMinor,
     at,
@@ -62,46 +63,51 @@ async function drawFromShelf(
   return { shortfall, entries };
 }
 
-export function createPour(ctx: ServerContext, userId: string, workshopId: string, input: PourInput) {
-  return writeRecords(ctx, userId, workshopId, async (tx, changeNumber) => {
-    await liveRecord(tx, workshopId, BUILD, input.buildId);
-    const material = (await liveRecord(tx, workshopId, MATERIAL, input.materialId)) as typeof materials.$inferSelect;
-    for (const containerId of input.containerIds ?? []) await liveRecord(tx, workshopId, CONTAINER, containerId);
-    const plan = plannedOrRefused(input, material.dataSheet);
-    const startAt = new Date(input.startAt);
-    const { shortfall, entries } = await drawFromShelf(tx, workshopId, input, plan, changeNumber, startAt);
-    const { request, ...computed } = plan;
-    const pour = await insertRecord(tx, POUR, {
-      id: input.id,
-      workshopId,
-      changeNumber,
-      buildId: input.buildId,
-      stepId: input.stepId ?? null,
-      materialId: input.materialId,
-      startAt,
-      request,
-      plan: computed,
-      shortfall,
-      note: input.note,
-      loggedBy: userId,
-    });
-    for (const entry of entries) await insertRecord(tx, LEDGER_ENTRY, entry);
-    await scheduleReminders(tx, { id: input.id, workshopId, buildId: input.buildId, note: input.note, plan: computed });
-    return pour;
+export async function createPour({ tx, workshopId, changeNumber, userId }: UnitOfWork, input: PourInput) {
+  await liveRecord(tx, workshopId, BUILD, input.buildId);
+  const material = await liveRecord(tx, workshopId, MATERIAL, input.materialId);
+  for (const containerId of input.containerIds ?? []) await liveRecord(tx, workshopId, CONTAINER, containerId);
+  const plan = plannedOrRefused(input, material.dataSheet);
+  const startAt = new Date(input.startAt);
+  const { shortfall, entries } = await drawFromShelf(tx, workshopId, input, plan, changeNumber, startAt);
+  const { request, ...computed } = plan;
+  const pour = await insertRecord(tx, POUR, {
+    id: input.id,
+    workshopId,
+    changeNumber,
+    buildId: input.buildId,
+    stepId: input.stepId ?? null,
+    materialId: input.materialId,
+    startAt,
+    request,
+    plan: computed,
+    shortfall,
+    note: input.note,
+    loggedBy: userId,
   });
+  for (const entry of entries) await insertRecord(tx, LEDGER_ENTRY, entry);
+  await scheduleReminders(tx, { id: input.id, workshopId, buildId: input.buildId, note: input.note, plan: computed });
+  return pour;
 }
 
 /** Deleting a pour puts its stock back: its uses are tombstoned with it. */
-export function deletePour(ctx: ServerContext, userId: string, workshopId: string, id: string) {
-  return writeRecords(ctx, userId, workshopId, async (tx, changeNumber) => {
-    await tombstone(tx, workshopId, POUR, id, changeNumber);
-    const now = new Date();
-    await cancelReminders(tx, id, now);
-    await tx
-      .update(ledgerEntries)
-      .set({ deletedAt: now, updatedAt: now, changeNumber })
-      .where(and(eq(ledgerEntries.pourId, id), isNull(ledgerEntries.deletedAt)));
-  });
+export async function deletePour({ tx, workshopId, changeNumber }: UnitOfWork, id: string) {
+  await tombstone(tx, workshopId, POUR, id, changeNumber);
+  const now = new Date();
+  await cancelReminders(tx, id, now);
+  await tx
+    .update(ledgerEntries)
+    .set({ deletedAt: now, updatedAt: now, changeNumber })
+    .where(and(eq(ledgerEntries.pourId, id), isNull(ledgerEntries.deletedAt)));
 }
 
 export const poursOfBuild = (buildId: string) => and(eq(pours.buildId, buildId), isNull(pours.deletedAt));
+
+export const pourRecords = served({
+  kind: 'pour',
+  table: pours,
+  changes: {
+    create: (work, m) => createPour(work, m.data),
+    delete: (work, m) => deletePour(work, m.recordId),
+  },
+});

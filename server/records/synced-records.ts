@@ -2,9 +2,8 @@ import { and, asc, eq, isNull, type SQL } from 'drizzle-orm';
 import type { PgColumn, PgTable } from 'drizzle-orm/pg-core';
 import type { ServerContext } from '../context.js';
 import { AppError } from '../core/app-error.js';
-import { may } from '../../shared/workshop-policy.js';
 import { authorize } from '../workshops/workshop-service.js';
-import { stampChange, type Transaction } from './change-stamp.js';
+import type { Transaction } from './change-stamp.js';
 
 /** A table made with syncedColumns(). */
 export type SyncedTable = PgTable & {
@@ -15,8 +14,8 @@ export type SyncedTable = PgTable & {
   changeNumber: PgColumn;
 };
 
-export interface RecordKind {
-  table: SyncedTable;
+export interface RecordKind<T extends SyncedTable = SyncedTable> {
+  table: T;
   /** For messages: "build", "step"... */
   noun: string;
 }
@@ -25,15 +24,15 @@ function notFound(kind: RecordKind): AppError {
   return new AppError(404, 'not_found', `There is no such ${kind.noun} in this workshop.`);
 }
 
-export async function listRecords(
+export async function listRecords<T extends SyncedTable>(
   ctx: ServerContext,
   userId: string,
   workshopId: string,
-  kind: RecordKind,
+  kind: RecordKind<T>,
   where?: SQL,
-) {
+): Promise<T['$inferSelect'][]> {
   await authorize(ctx.db, userId, workshopId, 'view');
-  const { table } = kind;
+  const table: SyncedTable = kind.table;
   return ctx.db
     .select()
     .from(table)
@@ -42,20 +41,31 @@ export async function listRecords(
 }
 
 /** A live record of the workshop, locked for the rest of the transaction; 404 otherwise. */
-export async function liveRecord(tx: Transaction, workshopId: string, kind: RecordKind, id: string) {
-  const { table } = kind;
+export async function liveRecord<T extends SyncedTable>(
+  tx: Transaction,
+  workshopId: string,
+  kind: RecordKind<T>,
+  id: string,
+): Promise<T['$inferSelect']> {
+  const table: SyncedTable = kind.table;
   const [row] = await tx
     .select()
     .from(table)
     .where(and(eq(table.id, id), eq(table.workshopId, workshopId), isNull(table.deletedAt)))
     .for('update');
   if (!row) throw notFound(kind);
-  return row as Record<string, unknown>;
+  return row;
 }
 
-export async function getRecord(ctx: ServerContext, userId: string, workshopId: string, kind: RecordKind, id: string) {
+export async function getRecord<T extends SyncedTable>(
+  ctx: ServerContext,
+  userId: string,
+  workshopId: string,
+  kind: RecordKind<T>,
+  id: string,
+): Promise<T['$inferSelect']> {
   await authorize(ctx.db, userId, workshopId, 'view');
-  const { table } = kind;
+  const table: SyncedTable = kind.table;
   const [row] = await ctx.db
     .select()
     .from(table)
@@ -64,58 +74,31 @@ export async function getRecord(ctx: ServerContext, userId: string, workshopId: 
   return row;
 }
 
-/** Writes inside one transaction with the workshop's next change number; the caller's role is checked first. */
-export async function writeRecords<T>(
-  ctx: ServerContext,
-  userId: string,
-  workshopId: string,
-  write: (tx: Transaction, changeNumber: number) => Promise<T>,
-): Promise<T> {
-  if (ctx.batch) {
-    if (!may(ctx.batch.role, 'write-builds')) {
-      throw new AppError(403, 'forbidden', `As a ${ctx.batch.role} of this workshop you may not do this.`);
-    }
-    return write(ctx.db as unknown as Transaction, ctx.batch.changeNumber);
-  }
-  await authorize(ctx.db, userId, workshopId, 'write-builds');
-  return ctx.db.transaction(async (tx) => write(tx, await stampChange(tx, workshopId)));
-}
-
-/**
- * Work outside the database that must wait until a write has committed, such as removing the
- * files of a deleted photo: at once after a lone write, after the whole batch for a sync push.
- */
-export async function afterCommit(ctx: ServerContext, work: () => Promise<void>): Promise<void> {
-  if (ctx.batch) ctx.batch.afterCommit.push(work);
-  else await work();
-}
-
-export async function insertRecord(tx: Transaction, kind: RecordKind, values: Record<string, unknown>) {
-  const [row] = await tx
-    .insert(kind.table)
-    .values(values as never)
-    .onConflictDoNothing()
-    .returning();
+export async function insertRecord<T extends SyncedTable>(
+  tx: Transaction,
+  kind: RecordKind<T>,
+  values: T['$inferInsert'],
+): Promise<T['$inferSelect']> {
+  const [row] = await tx.insert(kind.table).values(values).onConflictDoNothing().returning();
   if (!row) throw new AppError(409, 'id_taken', `A ${kind.noun} with this id exists already.`);
-  return row as Record<string, unknown>;
+  return row;
 }
 
-export async function patchRecord(
+export async function patchRecord<T extends SyncedTable>(
   tx: Transaction,
   workshopId: string,
-  kind: RecordKind,
+  kind: RecordKind<T>,
   id: string,
-  patch: Record<string, unknown>,
+  patch: Partial<T['$inferInsert']>,
   changeNumber: number,
-) {
+): Promise<T['$inferSelect']> {
   await liveRecord(tx, workshopId, kind, id);
-  const { table } = kind;
-  const [row] = await tx
-    .update(table)
-    .set({ ...patch, updatedAt: new Date(), changeNumber } as never)
-    .where(eq(table.id, id))
+  const rows = await tx
+    .update(kind.table)
+    .set({ ...patch, updatedAt: new Date(), changeNumber })
+    .where(eq(kind.table.id, id))
     .returning();
-  return row as Record<string, unknown>;
+  return (rows as T['$inferSelect'][])[0]!;
 }
 
 export async function tombstone(
@@ -124,35 +107,8 @@ export async function tombstone(
   kind: RecordKind,
   id: string,
   changeNumber: number,
-) {
+): Promise<void> {
   await liveRecord(tx, workshopId, kind, id);
-  const { table } = kind;
   const now = new Date();
-  await tx
-    .update(table)
-    .set({ deletedAt: now, updatedAt: now, changeNumber } as never)
-    .where(eq(table.id, id));
-}
-
-type Editor<Patch> = (
-  ctx: ServerContext,
-  userId: string,
-  workshopId: string,
-  id: string,
-  patch: Patch,
-) => Promise<Record<string, unknown>>;
-type Remover = (ctx: ServerContext, userId: string, workshopId: string, id: string) => Promise<void>;
-
-/** Editing a record field by field, for a kind whose patch needs no translation on the way in. */
-export function recordEditor<Patch extends object>(kind: RecordKind): Editor<Patch> {
-  return (ctx, userId, workshopId, id, patch) =>
-    writeRecords(ctx, userId, workshopId, (tx, changeNumber) =>
-      patchRecord(tx, workshopId, kind, id, patch as Record<string, unknown>, changeNumber),
-    );
-}
-
-/** Deleting a record: a tombstone that pulls carry to every device. */
-export function recordRemover(kind: RecordKind): Remover {
-  return (ctx, userId, workshopId, id) =>
-    writeRecords(ctx, userId, workshopId, (tx, changeNumber) => tombstone(tx, workshopId, kind, id, changeNumber));
+  await tx.update(kind.table).set({ deletedAt: now, updatedAt: now, changeNumber }).where(eq(kind.table.id, id));
 }

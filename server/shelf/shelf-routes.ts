@@ -1,3 +1,4 @@
+import { writeRecords } from '../records/unit-of-work.js';
 import { Router } from 'express';
 import {
   containerPatchSchema,
@@ -41,7 +42,9 @@ export function shelfRoutes(ctx: ServerContext): Router {
   });
   router.post(`${base}/materials`, async (req, res) => {
     const input = validate(newMaterialSchema, req.body);
-    res.status(201).json(await createMaterial(ctx, signedIn(res).user.id, pathId(req.params['workshopId']), input));
+    res
+      .status(201)
+      .json(await writeRecords(ctx, signedIn(res).user.id, pathId(req.params['workshopId']), createMaterial, input));
   });
   router.get(`${base}/materials/:materialId`, async (req, res) => {
     const [workshopId, materialId] = ids(req.params, 'materialId');
@@ -49,16 +52,33 @@ export function shelfRoutes(ctx: ServerContext): Router {
   });
   router.patch(`${base}/materials/:materialId`, async (req, res) => {
     const patch = validate(materialPatchSchema, req.body);
-    res.json(await updateMaterial(ctx, signedIn(res).user.id, ...ids(req.params, 'materialId'), patch));
+    res.json(
+      await writeRecords(
+        ctx,
+        signedIn(res).user.id,
+        pathId(req.params['workshopId']),
+        updateMaterial,
+        pathId(req.params['materialId']),
+        patch,
+      ),
+    );
   });
   router.delete(`${base}/materials/:materialId`, async (req, res) => {
-    await deleteMaterial(ctx, signedIn(res).user.id, ...ids(req.params, 'materialId'));
+    await writeRecords(
+      ctx,
+      signedIn(res).user.id,
+      pathId(req.params['workshopId']),
+      deleteMaterial,
+      pathId(req.params['materialId']),
+    );
     res.status(204).end();
   });
 
   router.post(`${base}/containers`, async (req, res) => {
     const input = validate(newContainerSchema, req.body);
-    res.status(201).json(await createContainer(ctx, signedIn(res).user.id, pathId(req.params['workshopId']), input));
+    res
+      .status(201)
+      .json(await writeRecords(ctx, signedIn(res).user.id, pathId(req.params['workshopId']), createContainer, input));
   });
   router.get(`${base}/containers/:containerId`, async (req, res) => {
     const [workshopId, containerId] = ids(req.params, 'containerId');
@@ -66,19 +86,56 @@ export function shelfRoutes(ctx: ServerContext): Router {
   });
   router.patch(`${base}/containers/:containerId`, async (req, res) => {
     const patch = validate(containerPatchSchema, req.body);
-    res.json(await updateContainer(ctx, signedIn(res).user.id, ...ids(req.params, 'containerId'), patch));
+    res.json(
+      await writeRecords(
+        ctx,
+        signedIn(res).user.id,
+        pathId(req.params['workshopId']),
+        updateContainer,
+        pathId(req.params['containerId']),
+        patch,
+      ),
+    );
   });
   router.delete(`${base}/containers/:containerId`, async (req, res) => {
-    await deleteContainer(ctx, signedIn(res).user.id, ...ids(req.params, 'containerId'));
+    await writeRecords(
+      ctx,
+      signedIn(res).user.id,
+      pathId(req.params['workshopId']),
+      deleteContainer,
+      pathId(req.params['containerId']),
+    );
     res.status(204).end();
   });
   router.post(`${base}/containers/:containerId/waste`, async (req, res) => {
     const input = validate(wasteSchema, req.body);
-    res.status(201).json(await recordWaste(ctx, signedIn(res).user.id, ...ids(req.params, 'containerId'), input));
+    res
+      .status(201)
+      .json(
+        await writeRecords(
+          ctx,
+          signedIn(res).user.id,
+          pathId(req.params['workshopId']),
+          recordWaste,
+          pathId(req.params['containerId']),
+          input,
+        ),
+      );
   });
   router.post(`${base}/containers/:containerId/stocktake`, async (req, res) => {
     const input = validate(stocktakeSchema, req.body);
-    res.status(201).json(await recordStocktake(ctx, signedIn(res).user.id, ...ids(req.params, 'containerId'), input));
+    res
+      .status(201)
+      .json(
+        await writeRecords(
+          ctx,
+          signedIn(res).user.id,
+          pathId(req.params['workshopId']),
+          recordStocktake,
+          pathId(req.params['containerId']),
+          input,
+        ),
+      );
   });
 
   return router;

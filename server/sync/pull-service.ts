@@ -1,29 +1,9 @@
 import { and, eq, gt, lte, sql } from 'drizzle-orm';
-import type { PulledChange, PullAnswer, SyncedEntity } from '../../shared/sync-schemas.js';
+import type { PulledChange, PullAnswer } from '../../shared/sync-schemas.js';
 import type { ServerContext } from '../context.js';
-import {
-  builds,
-  buildSteps,
-  containers,
-  ledgerEntries,
-  materials,
-  memberships,
-  photos,
-  pours,
-  workshops,
-} from '../db/schema/index.js';
-import { photoRecord, type PhotoRow } from '../photos/photo-records.js';
+import { memberships, workshops } from '../db/schema/index.js';
 import type { SyncedTable } from '../records/synced-records.js';
-
-const TABLES: readonly [SyncedEntity, SyncedTable][] = [
-  ['build', builds],
-  ['step', buildSteps],
-  ['material', materials],
-  ['container', containers],
-  ['ledgerEntry', ledgerEntries],
-  ['pour', pours],
-  ['photo', photos],
-];
+import { RECORD_SERVICES } from './record-services.js';
 
 /**
  * A page of a workshop's changes after a cursor, read from one snapshot. Change numbers are
@@ -57,8 +37,8 @@ export async function pull(
         };
       }
       const numbers = sql.join(
-        TABLES.map(
-          ([, table]) =>
+        RECORD_SERVICES.map(
+          ({ table }) =>
             sql`SELECT change_number FROM ${table} WHERE workshop_id = ${workshopId} AND change_number > ${after}`,
         ),
         sql` UNION ALL `,
@@ -68,21 +48,17 @@ export async function pull(
       );
       const upTo = boundary.rows[0] ? Number(boundary.rows[0].change_number) : membership.counter;
       const changes: PulledChange[] = [];
-      for (const [entity, table] of TABLES) {
+      for (const { kind, table, toRecord } of RECORD_SERVICES) {
+        const synced: SyncedTable = table;
         const rows = await tx
           .select()
-          .from(table)
-          .where(and(eq(table.workshopId, workshopId), gt(table.changeNumber, after), lte(table.changeNumber, upTo)));
-        for (const row of rows as (Record<string, unknown> & {
-          id: string;
-          changeNumber: number;
-          deletedAt: Date | null;
-        })[]) {
-          const record =
-            entity === 'photo'
-              ? { ...photoRecord(row as unknown as PhotoRow) }
-              : { ...row, deletedAt: row.deletedAt?.toISOString() ?? null };
-          changes.push({ entity, changeNumber: row.changeNumber, record });
+          .from(synced)
+          .where(
+            and(eq(synced.workshopId, workshopId), gt(synced.changeNumber, after), lte(synced.changeNumber, upTo)),
+          );
+        for (const row of rows) {
+          const record = toRecord(row) as PulledChange['record'];
+          changes.push({ entity: kind, changeNumber: record['changeNumber'] as number, record });
         }
       }
       changes.sort((a, b) => a.changeNumber - b.changeNumber);

@@ -1,14 +1,20 @@
 import { inArray } from 'drizzle-orm';
 import * as z from 'zod';
-import type { Role } from '../../shared/account-schemas.js';
-import { mutationSchema, type MutationResult, type PushAnswer } from '../../shared/sync-schemas.js';
+import { SYNCED_ENTITIES, type SyncedEntity } from '../../shared/record-kinds.js';
+import {
+  mutationSchema,
+  type MutationResult,
+  type ParsedMutation,
+  type PushAnswer,
+} from '../../shared/sync-schemas.js';
+import { may } from '../../shared/workshop-policy.js';
 import type { ServerContext } from '../context.js';
 import { AppError } from '../core/app-error.js';
-import type { Database } from '../db/database.js';
 import { pushedMutations } from '../db/schema/index.js';
 import { stampChange } from '../records/change-stamp.js';
+import { AfterCommit, type UnitOfWork } from '../records/unit-of-work.js';
 import { authorize } from '../workshops/workshop-service.js';
-import { applyMutation } from './apply-mutation.js';
+import { serviceOf } from './record-services.js';
 
 const idOnly = z.object({ mutationId: z.uuid() });
 
@@ -31,11 +37,13 @@ function refusedShape(raw: unknown): AppError {
 }
 
 /**
- * Applies a device's outbox in order, in one transaction. Each mutation runs in a savepoint: one
- * that can never apply (a viewer's write, an edit to a deleted record, bad data) is rolled back
- * alone and answered as rejected, and the ones behind it still apply. Every answer is recorded,
- * so a replay after a lost response changes nothing and answers the same. Anything else (the
- * database going away) rolls the whole batch back; the device retries later.
+ * Applies a device's outbox in order, in one transaction with one change number (it commits as one).
+ * A change that can never apply (a viewer's write, an edit to a deleted record, bad data) is answered
+ * as rejected and the ones behind it still apply: services refuse before they write, so a refused
+ * change leaves nothing behind, and the few that can refuse after writing run in a savepoint of their
+ * own (decided by their service, up front). Every answer is recorded, so a replay after a lost
+ * response changes nothing and answers the same. Anything else (the database going away) rolls the
+ * whole batch back; the device retries later.
  */
 export async function push(
   ctx: ServerContext,
@@ -44,35 +52,8 @@ export async function push(
   raw: readonly unknown[],
 ): Promise<PushAnswer> {
   const role = await authorize(ctx.db, userId, workshopId, 'view');
-  try {
-    return await applyBatch(ctx, role, userId, workshopId, raw, false);
-  } catch (error) {
-    if (!(error instanceof RefusalInBatch)) throw error;
-    // Someone's change is refused: do the batch again with each change in a savepoint of its own.
-    return applyBatch(ctx, role, userId, workshopId, raw, true);
-  }
-}
-
-/** Thrown on the quick path, where a refusal rolls the whole batch back to be done again with savepoints. */
-class RefusalInBatch extends Error {}
-
-/**
- * Savepoints cost round trips, so a batch is first applied without them; only when a change is
- * refused is it applied again with one savepoint per change.
- */
-async function applyBatch(
-  ctx: ServerContext,
-  role: Role,
-  userId: string,
-  workshopId: string,
-  raw: readonly unknown[],
-  isolate: boolean,
-): Promise<PushAnswer> {
-  const afterCommit: (() => Promise<void>)[] = [];
+  const later = new AfterCommit();
   const answer = await ctx.db.transaction(async (tx) => {
-    // One change number for the batch (it commits as one), taken when the first change is applied,
-    // so a batch of replays changes nothing at all. The workshop stays locked until the commit.
-    let batchCtx: ServerContext | null = null;
     const recorded: (typeof pushedMutations.$inferInsert)[] = [];
     const ids = raw
       .map((item) => idOnly.safeParse(item).data?.mutationId)
@@ -81,6 +62,9 @@ async function applyBatch(
       ? await tx.select().from(pushedMutations).where(inArray(pushedMutations.mutationId, ids))
       : [];
     const answered = new Map(earlier.map((row) => [row.mutationId, row.result]));
+    // Taken when the first new change comes, so a batch of replays changes nothing at all. The
+    // workshop stays locked until the commit.
+    let work: UnitOfWork | null = null;
     const results: MutationResult[] = [];
     for (const item of raw) {
       const mutationId = idOnly.safeParse(item).data?.mutationId;
@@ -93,12 +77,16 @@ async function applyBatch(
         results.push(known);
         continue;
       }
-      batchCtx ??= {
-        ...ctx,
-        db: tx as unknown as Database,
-        batch: { role, changeNumber: await stampChange(tx, workshopId), afterCommit },
+      work ??= {
+        tx,
+        changeNumber: await stampChange(tx, workshopId),
+        role,
+        userId,
+        workshopId,
+        clock: ctx.clock,
+        afterCommit: (job) => later.add(job),
       };
-      const result = await applyOne(batchCtx, userId, workshopId, mutationId, item, isolate);
+      const result = await applyOne(ctx, work, later, mutationId, item);
       recorded.push({ mutationId, workshopId, userId, result });
       answered.set(mutationId, result);
       results.push(result);
@@ -106,38 +94,45 @@ async function applyBatch(
     if (recorded.length > 0) await tx.insert(pushedMutations).values(recorded);
     return { results };
   });
-  for (const work of afterCommit) await work();
+  await later.run();
   return answer;
 }
 
 async function applyOne(
   ctx: ServerContext,
-  userId: string,
-  workshopId: string,
+  work: UnitOfWork,
+  later: AfterCommit,
   mutationId: string,
   item: unknown,
-  isolate: boolean,
 ): Promise<MutationResult> {
   const parsed = mutationSchema.safeParse(item);
   if (!parsed.success) return rejection(mutationId, refusedShape(item));
-  const queued = ctx.batch!.afterCommit.length;
+  if (!may(work.role, 'write-builds')) {
+    return rejection(
+      mutationId,
+      new AppError(403, 'forbidden', `As a ${work.role} of this workshop you may not do this.`),
+    );
+  }
+  const mutation = parsed.data;
+  const service = serviceOf(kindOf(mutation));
+  const queued = later.size;
   try {
-    if (isolate) {
-      // A savepoint: a refused mutation leaves no trace, and the batch goes on.
-      await ctx.db.transaction((savepoint) =>
-        applyMutation({ ...ctx, db: savepoint as unknown as Database }, userId, workshopId, parsed.data),
-      );
+    if (service.needsSavepoint(mutation)) {
+      await work.tx.transaction((savepoint) => service.apply({ ...work, tx: savepoint }, mutation, ctx));
     } else {
-      await applyMutation(ctx, userId, workshopId, parsed.data);
+      await service.apply(work, mutation, ctx);
     }
   } catch (error) {
     if (error instanceof AppError && error.status < 500) {
-      if (!isolate) throw new RefusalInBatch();
-      // Its savepoint is rolled back, so nothing it queued for after the commit may run.
-      ctx.batch!.afterCommit.length = queued;
+      // Nothing it wrote is kept, so nothing it queued for after the commit may run.
+      later.forgetFrom(queued);
       return rejection(mutationId, error);
     }
     throw error;
   }
-  return { mutationId, status: 'applied', changeNumber: ctx.batch!.changeNumber };
+  return { mutationId, status: 'applied', changeNumber: work.changeNumber };
+}
+
+function kindOf(mutation: ParsedMutation): SyncedEntity {
+  return SYNCED_ENTITIES.find((kind) => mutation.type.startsWith(`${kind}.`))!;
 }

@@ -1,3 +1,4 @@
+import { writeRecords } from '../../server/records/unit-of-work.js';
 import { v7 } from 'uuid';
 import { createBuild, createStep } from '../../server/builds/build-service.js';
 import type { ServerContext } from '../../server/context.js';
@@ -12,14 +13,14 @@ import { TEST_DATA_SHEET } from './shelf.js';
 export async function makeRecords(ctx: ServerContext, owner: TestAccount, workshopId: string) {
   const [buildId, stepId, materialId, containerId, partBId, pourId] = [v7(), v7(), v7(), v7(), v7(), v7()];
   const photoId = v7();
-  await createBuild(ctx, owner.id, workshopId, {
+  await writeRecords(ctx, owner.id, workshopId, createBuild, {
     id: buildId,
     name: 'Mill race',
     scaleRatio: 87.1,
     status: 'building',
     notes: '',
   });
-  await createStep(ctx, owner.id, workshopId, {
+  await writeRecords(ctx, owner.id, workshopId, createStep, {
     id: stepId,
     buildId,
     kind: 'water-pour',
@@ -27,7 +28,7 @@ export async function makeRecords(ctx: ServerContext, owner: TestAccount, worksh
     notes: '',
     happenedAt: '2026-11-01T10:00:00Z',
   });
-  await createMaterial(ctx, owner.id, workshopId, {
+  await writeRecords(ctx, owner.id, workshopId, createMaterial, {
     id: materialId,
     name: 'Test resin',
     kind: 'two-part-epoxy',
@@ -38,7 +39,7 @@ export async function makeRecords(ctx: ServerContext, owner: TestAccount, worksh
     [containerId, 'A'],
     [partBId, 'B'],
   ] as const) {
-    await createContainer(ctx, owner.id, workshopId, {
+    await writeRecords(ctx, owner.id, workshopId, createContainer, {
       id,
       materialId,
       part,
@@ -49,7 +50,7 @@ export async function makeRecords(ctx: ServerContext, owner: TestAccount, worksh
       boughtOn: '2026-10-01',
     });
   }
-  await createPour(ctx, owner.id, workshopId, {
+  await writeRecords(ctx, owner.id, workshopId, createPour, {
     id: pourId,
     buildId,
     materialId,

@@ -5,6 +5,7 @@
 // database of its own, seeded afresh: one workshop, a build with 200 steps, 10 materials with 5
 // containers each (the tests' invented data sheet), and a production server process of its own
 // without reminder workers.
+import { writeRecords } from '../../server/records/unit-of-work.js';
 import autocannon from 'autocannon';
 import pg from 'pg';
 import { v7 } from 'uuid';
@@ -29,7 +30,7 @@ async function seed(url: string) {
   const userId = user!.id;
   const workshopId = (await createWorkshop(ctx.db, userId, 'Load bench')).id;
   const buildId = v7();
-  await createBuild(ctx, userId, workshopId, {
+  await writeRecords(ctx, userId, workshopId, createBuild, {
     id: buildId,
     name: 'Load build',
     scaleRatio: 87.1,
@@ -37,7 +38,7 @@ async function seed(url: string) {
     notes: '',
   });
   for (let i = 0; i < 200; i += 1) {
-    await createStep(ctx, userId, workshopId, {
+    await writeRecords(ctx, userId, workshopId, createStep, {
       id: v7(),
       buildId,
       kind: 'painting',
@@ -49,7 +50,7 @@ async function seed(url: string) {
   let materialId = '';
   for (let m = 0; m < 10; m += 1) {
     materialId = v7();
-    await createMaterial(ctx, userId, workshopId, {
+    await writeRecords(ctx, userId, workshopId, createMaterial, {
       id: materialId,
       name: `Load resin ${m}`,
       kind: 'two-part-epoxy',
@@ -57,7 +58,7 @@ async function seed(url: string) {
       safetySheet: '',
     } as never);
     for (let c = 0; c < 5; c += 1) {
-      await createContainer(ctx, userId, workshopId, {
+      await writeRecords(ctx, userId, workshopId, createContainer, {
         id: v7(),
         materialId,
         part: c % 2 === 0 ? 'A' : 'B',

@@ -1,6 +1,7 @@
 // Fills a workshop with 100,000 pours and times the cost report and the shelf query.
 // Run with `npm run bench:costs` (PostgreSQL must be running: `npm run db:start`).
 // It uses a database of its own, made afresh each run, and prints the median of several runs.
+import { writeRecords } from '../../server/records/unit-of-work.js';
 import { sql } from 'drizzle-orm';
 import { performance } from 'node:perf_hooks';
 import pg from 'pg';
@@ -37,7 +38,7 @@ const [user] = await ctx.db.insert(users).values({ email: 'bench@benchtide.test'
 const workshop = await createWorkshop(ctx.db, user!.id, 'Benchmark workshop');
 const dataSheet = findMaterialPreset('coating-epoxy')!.dataSheet;
 const materialId = v7();
-await createMaterial(ctx, user!.id, workshop.id, {
+await writeRecords(ctx, user!.id, workshop.id, createMaterial, {
   id: materialId,
   name: 'Bench resin',
   kind: 'two-part-epoxy',
@@ -46,7 +47,7 @@ await createMaterial(ctx, user!.id, workshop.id, {
 });
 const containerIds = { A: v7(), B: v7() };
 for (const part of ['A', 'B'] as const) {
-  await createContainer(ctx, user!.id, workshop.id, {
+  await writeRecords(ctx, user!.id, workshop.id, createContainer, {
     id: containerIds[part],
     materialId,
     part,
@@ -61,7 +62,7 @@ const buildIds: string[] = [];
 for (let i = 0; i < BUILDS; i += 1) {
   const id = v7();
   buildIds.push(id);
-  await createBuild(ctx, user!.id, workshop.id, {
+  await writeRecords(ctx, user!.id, workshop.id, createBuild, {
     id,
     name: `Build ${i + 1}`,
     scaleRatio: 87.1,

@@ -1,6 +1,7 @@
 // Times a push of 1,000 queued mutations and a pull of 10,000 changes through the real sync
 // services, beside inserting the same rows straight into PostgreSQL, and prints the ratios.
 // Run with `npm run bench:sync`. It uses a database of its own, made afresh each run.
+import { changeType } from '../../shared/record-kinds.js';
 import { sql } from 'drizzle-orm';
 import { performance } from 'node:perf_hooks';
 import pg from 'pg';
@@ -41,7 +42,7 @@ async function timed(run: () => Promise<unknown>): Promise<number> {
 // Push: the outbox as a device sends it, in batches of MAX_PUSH.
 const pushWorkshop = await createWorkshop(ctx.db, user!.id, 'Push bench');
 const mutations = Array.from({ length: PUSHED }, (_, i) => ({
-  type: 'build.create',
+  type: changeType('build', 'create'),
   mutationId: v7(),
   data: build(`Pushed ${i}`),
 }));

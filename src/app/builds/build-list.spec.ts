@@ -79,13 +79,13 @@ describe('BuildList', () => {
     beforeEach(() => configure('builder'));
 
     it('should show each build from the store as a card, the one worked on last first', async () => {
-      const trench = await store.createBuild(WORKSHOP_ID, {
+      const trench = await store.create('build', WORKSHOP_ID, {
         name: 'Flooded trench',
         scaleRatio: 35,
         scaleId: 'fig-35',
         status: 'planning',
       });
-      const harbour = await store.createBuild(WORKSHOP_ID, {
+      const harbour = await store.create('build', WORKSHOP_ID, {
         name: 'Harbour at low tide',
         scaleRatio: 87.1,
         scaleId: 'ho',
@@ -111,15 +111,15 @@ describe('BuildList', () => {
     });
 
     it('should move a build up when a step is logged on it', async () => {
-      const harbour = await store.createBuild(WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
-      const canal = await store.createBuild(WORKSHOP_ID, { name: 'Canal lock', scaleRatio: 76.2, status: 'building' });
+      const harbour = await store.create('build', WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
+      const canal = await store.create('build', WORKSHOP_ID, { name: 'Canal lock', scaleRatio: 76.2, status: 'building' });
       await db.builds.update(harbour, { updatedAt: new Date(Date.now() - 2 * 86_400_000).toISOString() });
       await db.builds.update(canal, { updatedAt: new Date(Date.now() - 86_400_000).toISOString() });
       await render();
       await settle('the canal first', () => text(cards()[0]?.querySelector('.name') ?? null) === 'Canal lock');
 
       const happenedAt = new Date(Date.now() - 10 * 60_000).toISOString();
-      await store.createStep(WORKSHOP_ID, { buildId: harbour, kind: 'painting', title: 'Dark water base', happenedAt });
+      await store.create('step', WORKSHOP_ID, { buildId: harbour, kind: 'painting', title: 'Dark water base', happenedAt });
 
       await settle('the harbour first', () => text(cards()[0]?.querySelector('.name') ?? null) === 'Harbour');
       expect(field(cards()[0]!, 'activity')).toBe('Last activity 10 minutes ago');
@@ -127,8 +127,8 @@ describe('BuildList', () => {
     });
 
     it('should add up the cost of the stock its pours used, each currency on its own', async () => {
-      const harbour = await store.createBuild(WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
-      const other = await store.createBuild(WORKSHOP_ID, { name: 'Canal lock', scaleRatio: 76.2, status: 'building' });
+      const harbour = await store.create('build', WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
+      const other = await store.create('build', WORKSHOP_ID, { name: 'Canal lock', scaleRatio: 76.2, status: 'building' });
       const resin = await putMaterial(db, 'Clear casting resin');
       const euros = await putContainer(db, resin.id, 'EUR');
       const dollars = await putContainer(db, resin.id, 'USD');
@@ -147,12 +147,12 @@ describe('BuildList', () => {
     });
 
     it('should follow a build deleted on this device', async () => {
-      const harbour = await store.createBuild(WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
-      await store.createBuild(WORKSHOP_ID, { name: 'Canal lock', scaleRatio: 76.2, status: 'building' });
+      const harbour = await store.create('build', WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
+      await store.create('build', WORKSHOP_ID, { name: 'Canal lock', scaleRatio: 76.2, status: 'building' });
       await render();
       await settle('two cards', () => cards().length === 2);
 
-      await store.deleteBuild(WORKSHOP_ID, harbour);
+      await store.remove('build', WORKSHOP_ID, harbour);
 
       await settle('one card', () => cards().length === 1);
       expect(text(cards()[0]!.querySelector('.name'))).toBe('Canal lock');
@@ -168,13 +168,13 @@ describe('BuildList', () => {
     });
 
     it("should show a build's cover photo, from the server's thumbnail, and none on a build without one", async () => {
-      const harbour = await store.createBuild(WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
-      await store.createBuild(WORKSHOP_ID, { name: 'Canal lock', scaleRatio: 76.2, status: 'building' });
+      const harbour = await store.create('build', WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
+      await store.create('build', WORKSHOP_ID, { name: 'Canal lock', scaleRatio: 76.2, status: 'building' });
       const photo = picked(await pictureFile('cover.jpg'), '2025-03-01T09:30:00.000Z');
       await TestBed.inject(BuildPhotos).add(WORKSHOP_ID, { buildId: harbour }, [photo]);
       await db.photoUploads.clear();
       await db.photos.update(photo.id, { caption: 'Low tide at the jetty', changeNumber: 3, pending: undefined });
-      await store.patchBuild(WORKSHOP_ID, harbour, { coverPhotoId: photo.id });
+      await store.patch('build', WORKSHOP_ID, harbour, { coverPhotoId: photo.id });
       // The cover shows before the photo's record is read and takes its caption after, so its thumbnail must stay.
       await render(true);
 
@@ -192,7 +192,7 @@ describe('BuildList', () => {
     });
 
     it('should mark a build saved here and not yet synced', async () => {
-      await store.createBuild(WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
+      await store.create('build', WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
       await render();
       await settle('the card', () => cards().length === 1);
 
@@ -204,7 +204,7 @@ describe('BuildList', () => {
     beforeEach(() => configure('viewer'));
 
     it('should list the builds with no action to start one', async () => {
-      await store.createBuild(WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'finished' });
+      await store.create('build', WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'finished' });
       await render();
       await settle('the card', () => cards().length === 1);
 

@@ -48,7 +48,7 @@ describe('BuildLog', () => {
 
   it('should not count a pour planned for later as activity', async () => {
     const log = configure('builder');
-    const buildId = await store.createBuild(WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
+    const buildId = await store.create('build', WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
     const updatedAt = '2025-03-01T09:00:00.000Z';
     await db.builds.update(buildId, { updatedAt });
     const resin = await putMaterial(db, 'Clear casting resin');
@@ -63,7 +63,7 @@ describe('BuildLog', () => {
 
   it('should follow the stock books as containers and pours come and go', async () => {
     const log = configure('builder');
-    const buildId = await store.createBuild(WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
+    const buildId = await store.create('build', WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
     const cards = TestBed.runInInjectionContext(() => log.cards());
     const costOf = (): BuildCard['costs'] | undefined => cards()[0]?.costs;
     await settle('the card', () => cards().length === 1);

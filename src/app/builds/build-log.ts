@@ -3,10 +3,11 @@ import { toSignal } from '@angular/core/rxjs-interop';
 import { buildPatchSchema, may, stepPatchSchema, type NewBuild, type NewStep } from '@benchtide/shared';
 import { interval, map, startWith } from 'rxjs';
 import type * as z from 'zod';
-import { AccountSession } from '../account/account-session';
-import { BuildPhotos, type PhotoTarget, type PickedPhoto } from '../photos/build-photos';
+import { AccountSession } from '../core/account-session';
+import { BuildPhotos } from '../photos/build-photos';
 import { LocalRecords } from '../sync/local-records';
 import { OfflineStore } from '../sync/offline-store';
+import type { PhotoTarget, PickedPhoto } from '../sync/photo-upload-queue';
 import type { LocalBuild, LocalContainer, LocalLedgerEntry, LocalPour, LocalStep } from '../sync/synced-records';
 import { liveByKey } from './live-by-key';
 
@@ -115,22 +116,22 @@ export class BuildLog {
   }
 
   async createBuild(draft: Draft<NewBuild>): Promise<string> {
-    return this.store.createBuild(this.requireWorkshop(), draft);
+    return this.store.create('build', this.requireWorkshop(), draft);
   }
   async patchBuild(id: string, patch: z.input<typeof buildPatchSchema>): Promise<void> {
-    return this.store.patchBuild(this.requireWorkshop(), id, patch);
+    return this.store.patch('build', this.requireWorkshop(), id, patch);
   }
   async deleteBuild(id: string): Promise<void> {
-    return this.store.deleteBuild(this.requireWorkshop(), id);
+    return this.store.remove('build', this.requireWorkshop(), id);
   }
   async createStep(buildId: string, draft: StepDraft): Promise<string> {
-    return this.store.createStep(this.requireWorkshop(), { ...draft, buildId });
+    return this.store.create('step', this.requireWorkshop(), { ...draft, buildId });
   }
   async patchStep(id: string, patch: z.input<typeof stepPatchSchema>): Promise<void> {
-    return this.store.patchStep(this.requireWorkshop(), id, patch);
+    return this.store.patch('step', this.requireWorkshop(), id, patch);
   }
   async deleteStep(id: string): Promise<void> {
-    return this.store.deleteStep(this.requireWorkshop(), id);
+    return this.store.remove('step', this.requireWorkshop(), id);
   }
 
   /** Photos for a build, step or pour, stored in one transaction with `alongside` (the step they come with). */

@@ -45,7 +45,7 @@ describe('BuildPage', () => {
     TestBed.configureTestingModule({ imports: [BuildPage], providers: buildsTestProviders('build-page-spec') });
     db = TestBed.inject(BenchDb);
     store = TestBed.inject(OfflineStore);
-    buildId = await store.createBuild(WORKSHOP_ID, {
+    buildId = await store.create('build', WORKSHOP_ID, {
       name: 'Harbour',
       scaleRatio: 87.1,
       scaleId: 'ho',
@@ -57,14 +57,14 @@ describe('BuildPage', () => {
       notes: 'Low tide, mud flats',
     });
     const at = (hoursAgo: number) => new Date(Date.now() - hoursAgo * 3_600_000).toISOString();
-    await store.createStep(WORKSHOP_ID, {
+    await store.create('step', WORKSHOP_ID, {
       buildId,
       kind: 'base-and-terrain',
       title: 'Carved the foam',
       happenedAt: at(50),
     });
-    await store.createStep(WORKSHOP_ID, { buildId, kind: 'painting', title: 'Dark water base', happenedAt: at(30) });
-    await store.createStep(WORKSHOP_ID, { buildId, kind: 'detailing', title: 'Added the jetty', happenedAt: at(2) });
+    await store.create('step', WORKSHOP_ID, { buildId, kind: 'painting', title: 'Dark water base', happenedAt: at(30) });
+    await store.create('step', WORKSHOP_ID, { buildId, kind: 'detailing', title: 'Added the jetty', happenedAt: at(2) });
     const resin = await putMaterial(db, 'Clear casting resin');
     const euros = await putContainer(db, resin.id, 'EUR');
     pourStart = at(20);

@@ -37,7 +37,7 @@ describe('StepForm', () => {
     signIn('builder');
     TestBed.configureTestingModule({ imports: [StepFormHost], providers: buildsTestProviders('step-form-spec') });
     db = TestBed.inject(BenchDb);
-    buildId = await TestBed.inject(OfflineStore).createBuild(WORKSHOP_ID, {
+    buildId = await TestBed.inject(OfflineStore).create('build', WORKSHOP_ID, {
       name: 'Harbour',
       scaleRatio: 87.1,
       status: 'building',
@@ -161,7 +161,7 @@ describe('StepForm', () => {
 
   describe('a step already logged', () => {
     it('should keep its time and store the photos added with it', async () => {
-      const stepId = await TestBed.inject(OfflineStore).createStep(WORKSHOP_ID, {
+      const stepId = await TestBed.inject(OfflineStore).create('step', WORKSHOP_ID, {
         buildId,
         kind: 'painting',
         title: 'Base coat',

@@ -20,7 +20,7 @@ describe('BuildPhotos', () => {
     db = TestBed.inject(BenchDb);
     photos = TestBed.inject(BuildPhotos);
     store = TestBed.inject(OfflineStore);
-    buildId = await store.createBuild(WORKSHOP, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
+    buildId = await store.create('build', WORKSHOP, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
     await db.outbox.clear();
   });
   afterEach(async () => {
@@ -95,7 +95,7 @@ describe('BuildPhotos', () => {
       const photo = picked(await pictureFile('gloss.jpg'));
       const stepId = v7();
       const logStep = () =>
-        store.createStep(WORKSHOP, {
+        store.create('step', WORKSHOP, {
           id: stepId,
           buildId,
           kind: 'painting',

@@ -49,7 +49,7 @@ describe('PhotoGallery', () => {
     TestBed.configureTestingModule({ imports: [GalleryHost], providers: buildsTestProviders('photo-gallery-spec') });
     db = TestBed.inject(BenchDb);
     photos = TestBed.inject(BuildPhotos);
-    buildId = await TestBed.inject(OfflineStore).createBuild(WORKSHOP_ID, {
+    buildId = await TestBed.inject(OfflineStore).create('build', WORKSHOP_ID, {
       name: 'Harbour',
       scaleRatio: 87.1,
       status: 'building',

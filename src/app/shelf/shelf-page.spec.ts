@@ -13,6 +13,7 @@ import { MatSortHarness } from '@angular/material/sort/testing';
 import { MatTableHarness } from '@angular/material/table/testing';
 import { addDays, findMaterialPreset, type NewContainer, type NewMaterial } from '@benchtide/shared';
 import { format } from 'date-fns';
+import { DataSheetFieldsHarness } from '../pours/data-sheet-fields-testing';
 import { BenchDb } from '../sync/bench-db';
 import { OfflineStore } from '../sync/offline-store';
 import { dropDatabase, TEST_DATA_SHEET, until } from '../sync/sync-testing';
@@ -84,7 +85,7 @@ describe('ShelfPage', () => {
   }
 
   function material(fields: Partial<Omit<NewMaterial, 'id'>> = {}): Promise<string> {
-    return store.createMaterial(WORKSHOP_ID, {
+    return store.create('material', WORKSHOP_ID, {
       name: RESIN,
       kind: 'two-part-epoxy',
       dataSheet: TEST_DATA_SHEET,
@@ -94,7 +95,7 @@ describe('ShelfPage', () => {
   }
 
   function container(materialId: string, fields: Partial<Omit<NewContainer, 'id' | 'materialId'>> = {}) {
-    return store.createContainer(WORKSHOP_ID, {
+    return store.create('container', WORKSHOP_ID, {
       materialId,
       part: 'A',
       sizeQty: 500,
@@ -140,6 +141,11 @@ describe('ShelfPage', () => {
 
   async function valueOf(field: string): Promise<string> {
     return (await root.getHarness(MatInputHarness.with({ selector: `[data-field="${field}"]` }))).getValue();
+  }
+
+  /** The data-sheet fields of the material form in the open dialog. */
+  function dataSheet(): Promise<DataSheetFieldsHarness> {
+    return root.getHarness(DataSheetFieldsHarness);
   }
 
   /** The words under a field in the open dialog. */
@@ -355,8 +361,8 @@ describe('ShelfPage', () => {
         expect(
           await (await root.getHarness(MatSelectHarness.with({ selector: '[data-field="kind"]' }))).getValueText(),
         ).toBe('Single-part medium');
-        expect(await valueOf('partA')).toBe('1');
-        expect(await valueOf('maxLayer')).toBe('3');
+        expect(await (await dataSheet()).getValue('partA')).toBe('1');
+        expect(await (await dataSheet()).getValue('maxLayer')).toBe('3');
         await type('shelfLife', '30');
         await type('safetySheet', 'https://example.org/gloss-medium-sheet.pdf');
         await pressInDialog('Add material');
@@ -394,7 +400,7 @@ describe('ShelfPage', () => {
         expect(hintOf('name')).toBe('Name is required');
         expect(inDialog('.problem')).toContain('Nothing was saved');
         expect(await dialogsOpen()).toBe(1);
-        expect(await valueOf('partA')).toBe('1');
+        expect(await (await dataSheet()).getValue('partA')).toBe('1');
         expect(await db.materials.count()).toBe(0);
         expect(await db.outbox.count()).toBe(0);
       });
@@ -405,11 +411,11 @@ describe('ShelfPage', () => {
         await pressOnPage('add-material');
         await choose('preset', 'Coating epoxy, 1:1 by volume');
         await type('name', 'Bench coat');
-        await type('densityA', '0');
+        await (await dataSheet()).setValue('densityA', '0');
 
         await pressInDialog('Add material');
 
-        expect(hintOf('densityA')).toBe('Part A density must be more than 0 g/mL');
+        expect(await (await dataSheet()).getHint('densityA')).toBe('Part A density must be more than 0 g/mL');
         expect(await db.materials.count()).toBe(0);
       });
     });
@@ -422,7 +428,7 @@ describe('ShelfPage', () => {
 
         await pressOnPage('edit-material', materialId);
         expect(await valueOf('name')).toBe(RESIN);
-        expect(await valueOf('potLife')).toBe('30');
+        expect(await (await dataSheet()).getValue('potLife')).toBe('30');
         await type('name', 'Casting resin, red-lid kit');
         await pressInDialog('Save changes');
         await closed('the material form to close');
@@ -446,7 +452,7 @@ describe('ShelfPage', () => {
         const materialId = await material();
         await container(materialId, { currency: 'GBP' });
         await shown(materialId);
-        const create = spyOn(store, 'createContainer').and.callThrough();
+        const create = spyOn(store, 'create').and.callThrough();
 
         await pressOnPage('add-container', materialId);
         expect(await valueOf('currency')).toBe('GBP');
@@ -489,7 +495,7 @@ describe('ShelfPage', () => {
       it('should refuse a negative size in the schema’s words, keep what was typed and write nothing', async () => {
         const materialId = await material();
         await shown(materialId);
-        const create = spyOn(store, 'createContainer').and.callThrough();
+        const create = spyOn(store, 'create').and.callThrough();
 
         await pressOnPage('add-container', materialId);
         await type('size', '-5');

@@ -7,7 +7,7 @@ import {
   type NewMaterial,
 } from '@benchtide/shared';
 import type * as z from 'zod';
-import { AccountSession } from '../account/account-session';
+import { AccountSession } from '../core/account-session';
 import { BenchDb } from '../sync/bench-db';
 import { remainingOnDevice } from '../sync/device-stock';
 import { liveSignalOf } from '../sync/live-signal';
@@ -74,11 +74,11 @@ export class ShelfStock {
   }
 
   addMaterial(material: Omit<NewMaterial, 'id'>): Promise<string> {
-    return this.write((workshopId) => this.store.createMaterial(workshopId, material));
+    return this.write((workshopId) => this.store.create('material', workshopId, material));
   }
 
   editMaterial(id: string, patch: z.input<typeof materialPatchSchema>): Promise<void> {
-    return this.write((workshopId) => this.store.patchMaterial(workshopId, id, patch));
+    return this.write((workshopId) => this.store.patch('material', workshopId, id, patch));
   }
 
   /** Takes the material off the shelf with the containers still on it; logged pours keep their records. */
@@ -89,22 +89,22 @@ export class ShelfStock {
         .equals(id)
         .filter((container) => container.deletedAt === null)
         .primaryKeys();
-      for (const containerId of containers) await this.store.deleteContainer(workshopId, containerId);
-      await this.store.deleteMaterial(workshopId, id);
+      for (const containerId of containers) await this.store.remove('container', workshopId, containerId);
+      await this.store.remove('material', workshopId, id);
     });
   }
 
   /** A new container, full: its purchase goes into the stock book with it. */
   addContainer(container: Omit<NewContainer, 'id'>): Promise<string> {
-    return this.write((workshopId) => this.store.createContainer(workshopId, container));
+    return this.write((workshopId) => this.store.create('container', workshopId, container));
   }
 
   editContainer(id: string, patch: z.input<typeof containerPatchSchema>): Promise<void> {
-    return this.write((workshopId) => this.store.patchContainer(workshopId, id, patch));
+    return this.write((workshopId) => this.store.patch('container', workshopId, id, patch));
   }
 
   deleteContainer(id: string): Promise<void> {
-    return this.write((workshopId) => this.store.deleteContainer(workshopId, id));
+    return this.write((workshopId) => this.store.remove('container', workshopId, id));
   }
 
   /** Spilled, skinned over or gone off: `quantity` (in the container's unit) comes off its stock. */

@@ -1,4 +1,4 @@
-import type { Mutation } from '@benchtide/shared';
+import { changeType, type Mutation } from '@benchtide/shared';
 import type { OutboxRow } from './synced-records';
 
 /** A way to send a refused change again, changed so that the server can take it. */
@@ -7,6 +7,8 @@ export interface ChangeFix {
   /** What the fix does, in plain words, for its button. */
   readonly label: string;
 }
+
+const POUR_LOGGED = changeType('pour', 'create');
 
 const RECORD_SHORTFALL: ChangeFix = {
   kind: 'record-shortfall',
@@ -18,7 +20,7 @@ export function fixesFor(row: OutboxRow): ChangeFix[] {
   if (row.state !== 'rejected') return [];
   const { mutation, reason } = row;
   if (
-    mutation.type === 'pour.create' &&
+    mutation.type === POUR_LOGGED &&
     reason?.code === 'stock_short' &&
     mutation.data.whenShort !== 'record-shortfall'
   ) {
@@ -31,7 +33,7 @@ export function fixesFor(row: OutboxRow): ChangeFix[] {
 export function fixedMutation(row: OutboxRow, fix: ChangeFix): Mutation {
   const { mutation } = row;
   const offered = fixesFor(row).some((candidate) => candidate.kind === fix.kind);
-  if (!offered || mutation.type !== 'pour.create') {
+  if (!offered || mutation.type !== POUR_LOGGED) {
     throw new Error('That fix does not apply to this change. Retry it as it is, or discard it.');
   }
   return { ...mutation, data: { ...mutation.data, whenShort: 'record-shortfall' } };

@@ -32,7 +32,7 @@ describe('discarding a rejected change', () => {
   }
 
   it('should remove a record whose creation was rejected', async () => {
-    const id = await store.createBuild(WORKSHOP, { name: 'Harbour', scaleRatio: 87, status: 'planning' });
+    const id = await store.create('build', WORKSHOP, { name: 'Harbour', scaleRatio: 87, status: 'planning' });
     const seq = await reject(id);
 
     await store.discard(seq);
@@ -44,8 +44,8 @@ describe('discarding a rejected change', () => {
   it('should put back the fields a rejected change set, but not those a later change set', async () => {
     const id = v7();
     await db.builds.put(serverBuild(WORKSHOP, id, 7));
-    await store.patchBuild(WORKSHOP, id, { name: 'Harbour at dusk', notes: 'Gloss varnish' });
-    await store.patchBuild(WORKSHOP, id, { notes: 'Satin varnish' });
+    await store.patch('build', WORKSHOP, id, { name: 'Harbour at dusk', notes: 'Gloss varnish' });
+    await store.patch('build', WORKSHOP, id, { notes: 'Satin varnish' });
     const [first] = await db.outbox.toArray();
     await db.outbox.update(first?.seq ?? 0, { state: 'rejected', reason: REASON });
 
@@ -60,7 +60,7 @@ describe('discarding a rejected change', () => {
   it('should bring back a record whose deletion was rejected', async () => {
     const id = v7();
     await db.builds.put(serverBuild(WORKSHOP, id, 7));
-    await store.deleteBuild(WORKSHOP, id);
+    await store.remove('build', WORKSHOP, id);
 
     await store.discard(await reject(id));
 
@@ -70,7 +70,7 @@ describe('discarding a rejected change', () => {
   it("should leave the server's copy as it is when it arrived after the change", async () => {
     const id = v7();
     await db.builds.put(serverBuild(WORKSHOP, id, 7));
-    await store.patchBuild(WORKSHOP, id, { name: 'Harbour at dusk' });
+    await store.patch('build', WORKSHOP, id, { name: 'Harbour at dusk' });
     const seq = await reject(id);
     await db.builds.put(serverBuild(WORKSHOP, id, 8, { name: 'Harbour by night' }));
 
@@ -80,7 +80,7 @@ describe('discarding a rejected change', () => {
   });
 
   it('should not discard a change that is still waiting to be sent', async () => {
-    const id = await store.createBuild(WORKSHOP, { name: 'Harbour', scaleRatio: 87, status: 'planning' });
+    const id = await store.create('build', WORKSHOP, { name: 'Harbour', scaleRatio: 87, status: 'planning' });
     const [row] = await db.outbox.toArray();
 
     await store.discard(row?.seq ?? 0);

@@ -23,8 +23,12 @@ describe('LocalRecords', () => {
   });
 
   it('should follow the workshop it is given', async () => {
-    await TestBed.inject(OfflineStore).createBuild(WORKSHOP, { name: 'Harbour', scaleRatio: 87, status: 'planning' });
-    await TestBed.inject(OfflineStore).createBuild(OTHER_WORKSHOP, {
+    await TestBed.inject(OfflineStore).create('build', WORKSHOP, {
+      name: 'Harbour',
+      scaleRatio: 87,
+      status: 'planning',
+    });
+    await TestBed.inject(OfflineStore).create('build', OTHER_WORKSHOP, {
       name: 'Canal lock',
       scaleRatio: 76,
       status: 'planning',

@@ -34,7 +34,11 @@ describe('OfflineStore', () => {
 
   describe('creating a record', () => {
     it('should store the build and queue its creation together', async () => {
-      const id = await store.createBuild(WORKSHOP, { name: '  Harbour diorama ', scaleRatio: 87, status: 'planning' });
+      const id = await store.create('build', WORKSHOP, {
+        name: '  Harbour diorama ',
+        scaleRatio: 87,
+        status: 'planning',
+      });
 
       const build = await db.builds.get(id);
       const [row] = await db.outbox.toArray();
@@ -51,7 +55,7 @@ describe('OfflineStore', () => {
 
     it('should refuse bad input with the shared message and write nothing', async () => {
       await expectAsync(
-        store.createBuild(WORKSHOP, { name: ' ', scaleRatio: 87, status: 'planning' }),
+        store.create('build', WORKSHOP, { name: ' ', scaleRatio: 87, status: 'planning' }),
       ).toBeRejectedWith(jasmine.objectContaining({ message: jasmine.stringContaining('Name is required') }));
 
       expect(await db.builds.count()).toBe(0);
@@ -59,7 +63,7 @@ describe('OfflineStore', () => {
     });
 
     it('should write no record when its change cannot be queued', async () => {
-      await store.createBuild(WORKSHOP, { name: 'Harbour diorama', scaleRatio: 87, status: 'planning' });
+      await store.create('build', WORKSHOP, { name: 'Harbour diorama', scaleRatio: 87, status: 'planning' });
       const [first] = await db.outbox.toArray();
       const data = { id: v7(), name: 'Canal lock', scaleRatio: 76, status: 'planning' as const, notes: '' };
 
@@ -78,15 +82,17 @@ describe('OfflineStore', () => {
       const told: string[] = [];
       store.changes.subscribe((workshopId) => told.push(workshopId));
 
-      await store.createBuild(OTHER_WORKSHOP, { name: 'Canal lock', scaleRatio: 76, status: 'planning' });
-      await expectAsync(store.createBuild(WORKSHOP, { name: '', scaleRatio: 76, status: 'planning' })).toBeRejected();
+      await store.create('build', OTHER_WORKSHOP, { name: 'Canal lock', scaleRatio: 76, status: 'planning' });
+      await expectAsync(
+        store.create('build', WORKSHOP, { name: '', scaleRatio: 76, status: 'planning' }),
+      ).toBeRejected();
 
       expect(told).toEqual([OTHER_WORKSHOP]);
     });
 
     it('should store a new container with its purchase, as the first entry in its stock book', async () => {
       const materialId = v7();
-      const id = await store.createContainer(WORKSHOP, {
+      const id = await store.create('container', WORKSHOP, {
         materialId,
         part: 'A',
         sizeQty: 1000,
@@ -110,7 +116,7 @@ describe('OfflineStore', () => {
       const [build] = await db.builds.toArray();
       const id = build?.id ?? '';
 
-      await store.patchBuild(WORKSHOP, id, { name: 'Harbour at dusk', status: 'building' });
+      await store.patch('build', WORKSHOP, id, { name: 'Harbour at dusk', status: 'building' });
 
       expect(await db.builds.get(id)).toEqual(
         jasmine.objectContaining({ name: 'Harbour at dusk', status: 'building', changeNumber: 7, pending: true }),
@@ -121,7 +127,7 @@ describe('OfflineStore', () => {
     });
 
     it('should refuse to change a record this device does not hold, and queue nothing', async () => {
-      await expectAsync(store.patchStep(WORKSHOP, v7(), { title: 'Gloss coat' })).toBeRejectedWithError(
+      await expectAsync(store.patch('step', WORKSHOP, v7(), { title: 'Gloss coat' })).toBeRejectedWithError(
         /no such record/,
       );
 
@@ -129,12 +135,12 @@ describe('OfflineStore', () => {
     });
 
     it('should mark a deleted build and leave it out of the list', async () => {
-      const keep = await store.createBuild(WORKSHOP, { name: 'Canal lock', scaleRatio: 76, status: 'planning' });
-      const gone = await store.createBuild(WORKSHOP, { name: 'Harbour', scaleRatio: 87, status: 'planning' });
+      const keep = await store.create('build', WORKSHOP, { name: 'Canal lock', scaleRatio: 76, status: 'planning' });
+      const gone = await store.create('build', WORKSHOP, { name: 'Harbour', scaleRatio: 87, status: 'planning' });
       const builds = TestBed.runInInjectionContext(() => TestBed.inject(LocalRecords).builds(signal(WORKSHOP)));
       await until(() => builds().length === 2, 'both builds');
 
-      await store.deleteBuild(WORKSHOP, gone);
+      await store.remove('build', WORKSHOP, gone);
 
       await until(() => builds().length === 1, 'the list without the deleted build');
       expect(builds().map((b) => b.id)).toEqual([keep]);
@@ -151,7 +157,7 @@ describe('OfflineStore', () => {
     let containerId: string;
 
     beforeEach(async () => {
-      containerId = await store.createContainer(WORKSHOP, {
+      containerId = await store.create('container', WORKSHOP, {
         materialId: v7(),
         part: 'single',
         sizeQty: 1000,
@@ -210,7 +216,7 @@ describe('OfflineStore', () => {
       const { request, ...plan } = planned.plan;
       await db.pours.put({ ...pour, request, plan, shortfall: [] });
 
-      await store.deletePour(WORKSHOP, pourId);
+      await store.remove('pour', WORKSHOP, pourId);
 
       expect((await db.pours.get(pourId))?.deletedAt).not.toBeNull();
       expect((await db.ledgerEntries.get(use.id))?.deletedAt).not.toBeNull();
@@ -222,7 +228,7 @@ describe('OfflineStore', () => {
     let materialId: string;
 
     const addContainer = (fields: Partial<NewContainer>) =>
-      store.createContainer(WORKSHOP, {
+      store.create('container', WORKSHOP, {
         materialId,
         part: 'A',
         sizeQty: 500,
@@ -246,7 +252,7 @@ describe('OfflineStore', () => {
     }
 
     beforeEach(async () => {
-      materialId = await store.createMaterial(WORKSHOP, {
+      materialId = await store.create('material', WORKSHOP, {
         name: 'Test resin',
         kind: 'two-part-epoxy',
         dataSheet: TEST_DATA_SHEET,
@@ -340,7 +346,7 @@ describe('OfflineStore', () => {
       const chosen = await addContainer({ part: 'A', boughtOn: '2025-02-01' });
       const deleted = await addContainer({ part: 'B', boughtOn: '2025-01-01' });
       const partB = await addContainer({ part: 'B', boughtOn: '2025-02-01' });
-      await store.deleteContainer(WORKSHOP, deleted);
+      await store.remove('container', WORKSHOP, deleted);
 
       const id = await logPour({ containerIds: [chosen, partB] });
 
@@ -400,7 +406,7 @@ describe('OfflineStore', () => {
       await addContainer({ part: 'B' });
       const id = await logPour();
 
-      await store.deletePour(WORKSHOP, id);
+      await store.remove('pour', WORKSHOP, id);
 
       expect((await db.pours.get(id))?.deletedAt).not.toBeNull();
       expect((await stock())[partA]).toBe(500);

@@ -1,25 +1,18 @@
 import { inject, Injectable } from '@angular/core';
-import type {
-  buildPatchSchema,
-  containerPatchSchema,
-  materialPatchSchema,
-  photoPatchSchema,
-  stepPatchSchema,
-  stocktakeSchema,
-  wasteSchema,
-} from '@benchtide/shared';
+import type { stocktakeSchema, wasteSchema } from '@benchtide/shared';
 import {
+  changeType,
   costOfUseMinor,
+  DEVICE_TABLE_OF,
   drawForPour,
   stockShortMessage,
   stocktakeAdjustment,
+  type ChangeData,
   type FieldError,
+  type KindWith,
   type Mutation,
-  type NewBuild,
   type NewContainer,
-  type NewMaterial,
   type NewPour,
-  type NewStep,
   type PourShortfall,
   type ShelfContainer,
 } from '@benchtide/shared';
@@ -96,64 +89,47 @@ export class OfflineStore {
     this.queued.next(workshopId);
   }
 
-  async createBuild(workshopId: string, draft: Draft<NewBuild>): Promise<string> {
-    const data = (await writeChecks()).newBuildSchema.parse(withId(draft));
-    return this.create(workshopId, { type: 'build.create', mutationId: v7(), data }, [['builds', data]]);
-  }
-  async patchBuild(workshopId: string, id: string, patch: Input<typeof buildPatchSchema>): Promise<void> {
-    const data = (await writeChecks()).buildPatchSchema.parse(patch);
-    return this.patch(workshopId, 'builds', { type: 'build.patch', mutationId: v7(), recordId: id, data });
-  }
-  async deleteBuild(workshopId: string, id: string): Promise<void> {
-    return this.remove(workshopId, 'builds', { type: 'build.delete', mutationId: v7(), recordId: id });
-  }
-
-  async createStep(workshopId: string, draft: Draft<NewStep>): Promise<string> {
-    const data = (await writeChecks()).newStepSchema.parse(withId(draft));
-    return this.create(workshopId, { type: 'step.create', mutationId: v7(), data }, [['steps', data]]);
-  }
-  async patchStep(workshopId: string, id: string, patch: Input<typeof stepPatchSchema>): Promise<void> {
-    const data = (await writeChecks()).stepPatchSchema.parse(patch);
-    return this.patch(workshopId, 'steps', { type: 'step.patch', mutationId: v7(), recordId: id, data });
-  }
-  async deleteStep(workshopId: string, id: string): Promise<void> {
-    return this.remove(workshopId, 'steps', { type: 'step.delete', mutationId: v7(), recordId: id });
+  /**
+   * A new record of a kind the device creates as it is (a pour is logged with `logPour`). A new container
+   * arrives full: its purchase entry shares its id, as on the server.
+   */
+  async create<K extends Exclude<KindWith<'create'>, 'pour'>>(
+    kind: K,
+    workshopId: string,
+    draft: Draft<ChangeData<K, 'create'>>,
+  ): Promise<string> {
+    const data = (await writeChecks()).checkChangeData(kind, 'create', withId(draft));
+    const mutation = { type: changeType(kind, 'create'), mutationId: v7(), data } as Mutation;
+    const records: (readonly [SyncedTableName, NewFields])[] = [[DEVICE_TABLE_OF[kind], data as NewFields]];
+    if (kind === 'container') records.push(purchaseOf(data as NewContainer & { id: string }));
+    await this.apply(workshopId, mutation, (now) => insertRecords(this.db, workshopId, now, records));
+    return (data as NewFields).id;
   }
 
-  async createMaterial(workshopId: string, draft: Draft<NewMaterial>): Promise<string> {
-    const data = (await writeChecks()).newMaterialSchema.parse(withId(draft));
-    return this.create(workshopId, { type: 'material.create', mutationId: v7(), data }, [['materials', data]]);
-  }
-  async patchMaterial(workshopId: string, id: string, patch: Input<typeof materialPatchSchema>): Promise<void> {
-    const data = (await writeChecks()).materialPatchSchema.parse(patch);
-    return this.patch(workshopId, 'materials', { type: 'material.patch', mutationId: v7(), recordId: id, data });
-  }
-  async deleteMaterial(workshopId: string, id: string): Promise<void> {
-    return this.remove(workshopId, 'materials', { type: 'material.delete', mutationId: v7(), recordId: id });
+  /** Changes the fields given, last write wins per field. */
+  async patch<K extends KindWith<'patch'>>(
+    kind: K,
+    workshopId: string,
+    id: string,
+    patch: ChangeData<K, 'patch'>,
+  ): Promise<void> {
+    const data = (await writeChecks()).checkChangeData(kind, 'patch', patch);
+    const mutation = { type: changeType(kind, 'patch'), mutationId: v7(), recordId: id, data } as Mutation;
+    const table = DEVICE_TABLE_OF[kind];
+    return this.apply(workshopId, mutation, (now) => patchRecord(this.db, table, id, data as object, now));
   }
 
-  /** A new container arrives full: its purchase entry shares its id, as on the server. */
-  async createContainer(workshopId: string, draft: Draft<NewContainer>): Promise<string> {
-    const data = (await writeChecks()).newContainerSchema.parse(withId(draft));
-    const purchase = ledgerEntry(data.id, 'purchase', data.sizeQty, { at: `${data.boughtOn}T12:00:00Z` });
-    const mutation: Mutation = { type: 'container.create', mutationId: v7(), data };
-    return this.create(workshopId, mutation, [
-      ['containers', data],
-      ['ledgerEntries', purchase],
-    ]);
-  }
-  async patchContainer(workshopId: string, id: string, patch: Input<typeof containerPatchSchema>): Promise<void> {
-    const data = (await writeChecks()).containerPatchSchema.parse(patch);
-    return this.patch(workshopId, 'containers', { type: 'container.patch', mutationId: v7(), recordId: id, data });
-  }
-  async deleteContainer(workshopId: string, id: string): Promise<void> {
-    return this.remove(workshopId, 'containers', { type: 'container.delete', mutationId: v7(), recordId: id });
+  /** A soft delete until the server's tombstone arrives; a pour takes the stock it drew with it. */
+  async remove(kind: KindWith<'delete'>, workshopId: string, id: string): Promise<void> {
+    const mutation = { type: changeType(kind, 'delete'), mutationId: v7(), recordId: id } as Mutation;
+    const table = DEVICE_TABLE_OF[kind];
+    return this.apply(workshopId, mutation, (now) => softDelete(this.db, table, id, now));
   }
 
   /** Shown at once, costed from this device's copy of the container; the server's entry replaces it on pull. */
   async recordWaste(workshopId: string, containerId: string, draft: Draft<Input<typeof wasteSchema>>): Promise<string> {
-    const data = (await writeChecks()).wasteSchema.parse(withId(draft));
-    const mutation: Mutation = { type: 'container.waste', mutationId: v7(), recordId: containerId, data };
+    const data = (await writeChecks()).checkChangeData('container', 'waste', withId(draft));
+    const mutation = { type: changeType('container', 'waste'), mutationId: v7(), recordId: containerId, data } as const;
     await this.apply(workshopId, mutation, async (now) => {
       const container = await this.db.containers.get(containerId);
       const costMinor = container ? costOfUseMinor(data.quantity, container) : 0;
@@ -171,8 +147,13 @@ export class OfflineStore {
     containerId: string,
     draft: Draft<Input<typeof stocktakeSchema>>,
   ): Promise<string> {
-    const data = (await writeChecks()).stocktakeSchema.parse(withId(draft));
-    const mutation: Mutation = { type: 'container.stocktake', mutationId: v7(), recordId: containerId, data };
+    const data = (await writeChecks()).checkChangeData('container', 'stocktake', withId(draft));
+    const mutation = {
+      type: changeType('container', 'stocktake'),
+      mutationId: v7(),
+      recordId: containerId,
+      data,
+    } as const;
     await this.apply(workshopId, mutation, async (now) => {
       const sums = await remainingOnDevice(this.db, [containerId]);
       const quantity = stocktakeAdjustment(data.countedQty, sums[containerId] ?? 0);
@@ -190,10 +171,10 @@ export class OfflineStore {
    * device, the pour cannot be planned, or the shelf is short and `whenShort` is refuse.
    */
   async logPour(workshopId: string, draft: Draft<NewPour>): Promise<string> {
-    const { newPourSchema, planPour } = await writeChecks();
-    const data = newPourSchema.parse(withId(draft));
+    const { checkChangeData, planPour } = await writeChecks();
+    const data = checkChangeData('pour', 'create', withId(draft));
     const { id, buildId, materialId, startAt, note, containerIds } = data;
-    const mutation: Mutation = { type: 'pour.create', mutationId: v7(), data };
+    const mutation = { type: changeType('pour', 'create'), mutationId: v7(), data } as const;
     await this.apply(workshopId, mutation, async (now) => {
       const material = await this.db.materials.get(materialId);
       if (material?.workshopId !== workshopId || material.deletedAt !== null) throw new Error(MATERIAL_NOT_HERE);
@@ -214,19 +195,6 @@ export class OfflineStore {
     });
     return id;
   }
-  async deletePour(workshopId: string, id: string): Promise<void> {
-    return this.remove(workshopId, 'pours', { type: 'pour.delete', mutationId: v7(), recordId: id });
-  }
-
-  /** For a photo the server holds; one whose upload still waits is changed with its upload instead. */
-  async patchPhoto(workshopId: string, id: string, patch: Input<typeof photoPatchSchema>): Promise<void> {
-    const data = (await writeChecks()).photoPatchSchema.parse(patch);
-    return this.patch(workshopId, 'photos', { type: 'photo.patch', mutationId: v7(), recordId: id, data });
-  }
-  async deletePhoto(workshopId: string, id: string): Promise<void> {
-    return this.remove(workshopId, 'photos', { type: 'photo.delete', mutationId: v7(), recordId: id });
-  }
-
   /** Throws a rejected change away and puts back what it changed on this device, where nothing newer did. */
   discard(seq: number): Promise<void> {
     return discardChange(this.db, seq);
@@ -250,24 +218,11 @@ export class OfflineStore {
     );
     return containers.map((container) => ({ ...container, remainingQty: sums[container.id] ?? 0 }));
   }
+}
 
-  private async create(
-    workshopId: string,
-    mutation: Mutation,
-    records: readonly (readonly [SyncedTableName, NewFields])[],
-  ): Promise<string> {
-    await this.apply(workshopId, mutation, (now) => insertRecords(this.db, workshopId, now, records));
-    return records[0]?.[1].id ?? '';
-  }
-
-  private patch(workshopId: string, table: SyncedTableName, mutation: Mutation & { recordId: string }) {
-    const data = 'data' in mutation ? mutation.data : {};
-    return this.apply(workshopId, mutation, (now) => patchRecord(this.db, table, mutation.recordId, data, now));
-  }
-
-  private remove(workshopId: string, table: SyncedTableName, mutation: Mutation & { recordId: string }) {
-    return this.apply(workshopId, mutation, (now) => softDelete(this.db, table, mutation.recordId, now));
-  }
+/** A new container's purchase: the first entry in its stock book, under the container's own id. */
+function purchaseOf(data: NewContainer & { id: string }): readonly [SyncedTableName, NewFields] {
+  return ['ledgerEntries', ledgerEntry(data.id, 'purchase', data.sizeQty, { at: `${data.boughtOn}T12:00:00Z` })];
 }
 
 function withId<T>(draft: Draft<T>): Draft<T> & { id: string } {

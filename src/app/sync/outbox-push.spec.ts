@@ -40,7 +40,7 @@ describe('OutboxPush', () => {
   async function createBuilds(names: readonly string[], workshopId = WORKSHOP): Promise<string[]> {
     const ids: string[] = [];
     for (const name of names)
-      ids.push(await store.createBuild(workshopId, { name, scaleRatio: 87, status: 'planning' }));
+      ids.push(await store.create('build', workshopId, { name, scaleRatio: 87, status: 'planning' }));
     return ids;
   }
 

@@ -9,8 +9,8 @@ import type {
   PourPlan,
   PourPlanRequest,
   PourShortfall,
-  SyncedEntity,
 } from '@benchtide/shared';
+import { DEVICE_TABLE_OF, DEVICE_TABLES, type DeviceTableName } from '@benchtide/shared';
 import type * as z from 'zod';
 
 /**
@@ -78,26 +78,10 @@ export interface LocalPhoto extends SyncedFields {
   uploadedBy: string | null;
 }
 
-export const SYNCED_TABLES = [
-  'builds',
-  'steps',
-  'materials',
-  'containers',
-  'ledgerEntries',
-  'pours',
-  'photos',
-] as const;
-export type SyncedTableName = (typeof SYNCED_TABLES)[number];
-
-export const TABLE_OF: Readonly<Record<SyncedEntity, SyncedTableName>> = {
-  build: 'builds',
-  step: 'steps',
-  material: 'materials',
-  container: 'containers',
-  ledgerEntry: 'ledgerEntries',
-  pour: 'pours',
-  photo: 'photos',
-};
+/** The device's tables of synced records, from the registry (record-kinds.ts in shared/). */
+export const SYNCED_TABLES = DEVICE_TABLES;
+export type SyncedTableName = DeviceTableName;
+export const TABLE_OF = DEVICE_TABLE_OF;
 
 export type RejectReason = Extract<MutationResult, { status: 'rejected' }>['reason'];
 

@@ -1,18 +1,3 @@
 // The shared schemas and pour maths a write on this device is checked with, in a chunk of their own:
-// see write-checks.ts.
-export {
-  buildPatchSchema,
-  containerPatchSchema,
-  materialPatchSchema,
-  newBuildSchema,
-  newContainerSchema,
-  newMaterialSchema,
-  newPourSchema,
-  newStepSchema,
-  photoPatchSchema,
-  photoUploadFieldsSchema,
-  planPour,
-  stepPatchSchema,
-  stocktakeSchema,
-  wasteSchema,
-} from '@benchtide/shared';
+// see write-checks.ts. The schema of each kind of change comes from the registry (recordSchema).
+export { checkChangeData, photoPatchSchema, photoUploadFieldsSchema, planPour } from '@benchtide/shared';
