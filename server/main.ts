@@ -4,10 +4,12 @@ import { readConfig } from './config.js';
 import { createContext } from './context-factory.js';
 import { applyMigrations, openDatabase } from './db/database.js';
 import { pino } from 'pino';
+import { logProcessFailures } from './core/process-failures.js';
 import { startReminderJobs } from './reminders/reminder-jobs.js';
 
 const config = readConfig();
 const log = pino({ level: config.logLevel });
+logProcessFailures(log);
 const database = openDatabase(config.databaseUrl);
 
 try {
