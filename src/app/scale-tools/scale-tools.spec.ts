@@ -3,8 +3,8 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatButtonToggleHarness } from '@angular/material/button-toggle/testing';
 import { MatFormFieldHarness } from '@angular/material/form-field/testing';
-import { MatInputHarness } from '@angular/material/input/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
+import { ScalePickerHarness } from './scale-picker-testing';
 import { ScaleTools } from './scale-tools';
 
 // Scales and gauges used below, and where the numbers come from:
@@ -67,11 +67,8 @@ describe('ScaleTools', () => {
     await fixture.whenStable();
   }
 
-  async function ratioField(): Promise<MatInputHarness> {
-    const formField = await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'N of 1:N' }));
-    const input = await formField.getControl(MatInputHarness);
-    if (!input) throw new Error('No ratio field');
-    return input;
+  function picker(label: string): Promise<ScalePickerHarness> {
+    return loader.getHarness(ScalePickerHarness.with({ label }));
   }
 
   async function switchToImperial(): Promise<void> {
@@ -137,14 +134,14 @@ describe('ScaleTools', () => {
     beforeEach(render);
 
     it('should start at HO and name its source', async () => {
-      const select = await selectIn('Scale');
+      const scale = await picker('Scale');
 
-      expect(await select.getValueText()).toBe('HO · 1:87.1');
-      expect(textOf('bt-scale-picker mat-hint')).toBe('Source: NMRA S-1.2');
+      expect(await scale.getScaleText()).toBe('HO · 1:87.1');
+      expect(await scale.getHint()).toBe('Source: NMRA S-1.2');
     });
 
     it('should convert at the scale picked from the list', async () => {
-      await choose('Scale', 'N · 1:160');
+      await (await picker('Scale')).chooseScale('N · 1:160');
 
       // 10 000 mm / 160 = 62.5 mm
       expect(field('model-length').value).toBe('62.5');
@@ -156,16 +153,20 @@ describe('ScaleTools', () => {
     });
 
     describe('with Other 1:N…', () => {
-      beforeEach(() => choose('Scale', 'Other 1:N…'));
+      let scale: ScalePickerHarness;
+
+      beforeEach(async () => {
+        scale = await picker('Scale');
+        await scale.chooseScale('Other 1:N…');
+      });
 
       it('should show the ratio field, starting from the scale before', async () => {
-        expect(await (await ratioField()).getValue()).toBe('87.1');
-        expect(textOf('bt-scale-picker mat-hint')).toBe('Your own ratio');
+        expect(await scale.getRatio()).toBe('87.1');
+        expect(await scale.getHint()).toBe('Your own ratio');
       });
 
       it('should convert at the typed ratio', async () => {
-        await (await ratioField()).setValue('100');
-        await fixture.whenStable();
+        await scale.setRatio('100');
 
         // 10 000 mm / 100 = 100 mm
         expect(field('model-length').value).toBe('100');
@@ -174,10 +175,9 @@ describe('ScaleTools', () => {
 
       for (const invalid of ['0', 'abc']) {
         it(`should explain "${invalid}" in plain words and give no number`, async () => {
-          await (await ratioField()).setValue(invalid);
-          await fixture.whenStable();
+          await scale.setRatio(invalid);
 
-          expect(textOf('bt-scale-picker [role="alert"]')).toBe(RATIO_MESSAGE);
+          expect(await scale.getRatioError()).toBe(RATIO_MESSAGE);
           expect(field('model-length').value).toBe('');
           expect(field('real-length').value).toBe('10');
           expect(textOf('[data-result="figure"] .result-value')).toBe('—');
@@ -186,13 +186,11 @@ describe('ScaleTools', () => {
       }
 
       it('should give numbers again once the ratio can be read', async () => {
-        const ratio = await ratioField();
-        await ratio.setValue('0');
-        await ratio.setValue('50');
-        await fixture.whenStable();
+        await scale.setRatio('0');
+        await scale.setRatio('50');
 
         // 10 000 mm / 50 = 200 mm; 1750 mm / 50 = 35 mm
-        expect(query('bt-scale-picker [role="alert"]')).toBeNull();
+        expect(await scale.getRatioError()).toBeNull();
         expect(field('model-length').value).toBe('200');
         expect(textOf('[data-result="figure"] .result-value')).toBe('35 mm');
       });
@@ -292,7 +290,7 @@ describe('ScaleTools', () => {
     });
 
     it('should name the track made for the chosen scale', async () => {
-      await choose('Scale', 'N · 1:160');
+      await (await picker('Scale')).chooseScale('N · 1:160');
 
       // 1435 mm / 160 = 8.97 mm; N track is 9 mm by NMRA S-1.2
       expect(textOf('[data-result="gauge"] .result-value')).toBe('8.97 mm');
@@ -315,23 +313,21 @@ describe('ScaleTools', () => {
     });
 
     it('should follow a change of the smaller scale', async () => {
-      await choose('Smaller scale', 'HO · 1:87.1');
+      await (await picker('Smaller scale')).chooseScale('HO · 1:87.1');
 
       // 87.1 / 35 = 2.489; 2.489 cubed = 15.41
       expect(factors()).toEqual(['2.49×', '15.4×']);
     });
 
     it('should compare with a typed ratio, and not at all while it cannot be read', async () => {
-      await choose('Larger scale', 'Other 1:N…');
-      const ratio = await ratioField();
+      const larger = await picker('Larger scale');
+      await larger.chooseScale('Other 1:N…');
 
-      await ratio.setValue('0');
-      await fixture.whenStable();
+      await larger.setRatio('0');
 
       expect(query('[data-result="comparison"]')).toBeNull();
 
-      await ratio.setValue('80');
-      await fixture.whenStable();
+      await larger.setRatio('80');
 
       // 160 / 80 = 2; 2 cubed = 8
       expect(factors()).toEqual(['2×', '8×']);
