@@ -8,13 +8,15 @@ import {
 } from '@angular/core';
 import { provideRouter, withComponentInputBinding, withInMemoryScrolling } from '@angular/router';
 import { provideServiceWorker } from '@angular/service-worker';
-import { AccountSession } from './account/account-session';
+import { AccountSession } from './core/account-session';
 import { routes } from './app.routes';
+import { provideAppErrorHandler } from './core/app-error-handler';
 import { BenchIcons } from './core/bench-icons';
 
 export const appConfig: ApplicationConfig = {
   providers: [
     provideBrowserGlobalErrorListeners(),
+    provideAppErrorHandler(),
     provideRouter(routes, withComponentInputBinding(), withInMemoryScrolling({ scrollPositionRestoration: 'top' })),
     provideHttpClient(withFetch()),
     provideAppInitializer(() => inject(BenchIcons).register()),

@@ -36,7 +36,7 @@ export const routes: Routes = [
   {
     path: 'add-photo',
     title: 'Add a photo · Benchtide',
-    loadComponent: () => import('./photos/photo-quick-add').then((m) => m.PhotoQuickAdd),
+    loadComponent: () => import('./builds/photo-quick-add').then((m) => m.PhotoQuickAdd),
   },
   {
     path: 'shelf',

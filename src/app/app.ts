@@ -11,7 +11,7 @@ import {
 } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
-import { AccountSession } from './account/account-session';
+import { AccountSession } from './core/account-session';
 import { AppUpdates } from './core/app-updates';
 import { Connectivity } from './core/connectivity';
 import { DevicePreferences } from './core/device-preferences';

@@ -8,7 +8,7 @@ import type {
 } from '@benchtide/shared';
 import { firstValueFrom } from 'rxjs';
 import type * as z from 'zod';
-import { AccountSession } from './account-session';
+import { AccountSession } from '../core/account-session';
 
 /** The server's answer where it must not tell whether an address has an account. */
 interface MessageAnswer {

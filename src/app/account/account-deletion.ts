@@ -9,7 +9,7 @@ import { deleteAccountRequestSchema } from '@benchtide/shared';
 import { ProblemNote } from '../core/problem-note';
 import { Submission } from '../core/submission';
 import { ROLE_LABELS } from '../workshop/roles';
-import { AccountSession } from './account-session';
+import { AccountSession } from '../core/account-session';
 import { AccountSettings } from './account-settings';
 import { PasswordField } from './password-field';
 

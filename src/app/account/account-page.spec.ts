@@ -12,7 +12,7 @@ import { defaultReminderPreferences, type SessionView } from '@benchtide/shared'
 import { provideServiceWorker } from '@angular/service-worker';
 import { BenchIcons } from '../core/bench-icons';
 import { AccountPage } from './account-page';
-import { AccountSession } from './account-session';
+import { AccountSession } from '../core/account-session';
 
 const SESSION_KEY = 'benchtide.session';
 const SESSION: SessionView = {

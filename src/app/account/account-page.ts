@@ -8,7 +8,7 @@ import { Router } from '@angular/router';
 import { ProblemNote } from '../core/problem-note';
 import { Submission } from '../core/submission';
 import { AccountDeletion } from './account-deletion';
-import { AccountSession } from './account-session';
+import { AccountSession } from '../core/account-session';
 import { DisplayNameForm } from './display-name-form';
 import { PasswordChangeForm } from './password-change-form';
 import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';

@@ -8,7 +8,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { updateAccountRequestSchema } from '@benchtide/shared';
 import { ProblemNote } from '../core/problem-note';
 import { fieldMessage, Submission } from '../core/submission';
-import { AccountSession } from './account-session';
+import { AccountSession } from '../core/account-session';
 import { AccountSettings } from './account-settings';
 
 @Component({

@@ -10,7 +10,7 @@ import { MatInputHarness } from '@angular/material/input/testing';
 import { provideRouter } from '@angular/router';
 import type { SessionView } from '@benchtide/shared';
 import { BenchIcons } from '../core/bench-icons';
-import { AccountSession } from './account-session';
+import { AccountSession } from '../core/account-session';
 import { ResetPassword } from './reset-password';
 
 const TOKEN = 'reset_0123456789abcdefghij';

@@ -11,7 +11,7 @@ import { MatProgressBarHarness } from '@angular/material/progress-bar/testing';
 import { provideRouter, Router } from '@angular/router';
 import type { SessionView } from '@benchtide/shared';
 import { BenchIcons } from '../core/bench-icons';
-import { AccountSession } from './account-session';
+import { AccountSession } from '../core/account-session';
 import { SignIn } from './sign-in';
 
 const SESSION: SessionView = {

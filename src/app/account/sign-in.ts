@@ -9,7 +9,7 @@ import { emailOnlyRequestSchema, signInRequestSchema } from '@benchtide/shared';
 import { ProblemNote } from '../core/problem-note';
 import { fieldMessage, Submission } from '../core/submission';
 import { AccountAccess } from './account-access';
-import { AccountSession } from './account-session';
+import { AccountSession } from '../core/account-session';
 import { PasswordField } from './password-field';
 import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';
 

@@ -3,7 +3,7 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { TestBed } from '@angular/core/testing';
 import { type ActivatedRouteSnapshot, provideRouter, Router, type RouterStateSnapshot, UrlTree } from '@angular/router';
 import type { SessionView } from '@benchtide/shared';
-import { AccountSession } from './account-session';
+import { AccountSession } from '../core/account-session';
 import { signedInGuard } from './signed-in-guard';
 
 const SESSION_KEY = 'benchtide.session';

@@ -1,6 +1,6 @@
 import { inject } from '@angular/core';
 import { Router, type CanActivateFn } from '@angular/router';
-import { AccountSession } from './account-session';
+import { AccountSession } from '../core/account-session';
 
 /**
  * Screens that need an account send a signed-out modeller to sign in, and back here afterwards. It waits for

@@ -7,7 +7,7 @@ import { verifyEmailRequestSchema } from '@benchtide/shared';
 import { ProblemNote } from '../core/problem-note';
 import { Submission } from '../core/submission';
 import { AccountAccess } from './account-access';
-import { AccountSession } from './account-session';
+import { AccountSession } from '../core/account-session';
 
 /** Where the link in the confirmation e-mail leads: the address is confirmed as the screen opens. */
 @Component({

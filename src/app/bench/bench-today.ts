@@ -7,7 +7,7 @@ import {
   type ShelfWarning,
 } from '@benchtide/shared';
 import { format } from 'date-fns';
-import { AccountSession } from '../account/account-session';
+import { AccountSession } from '../core/account-session';
 import { BenchDb } from '../sync/bench-db';
 import { remainingOnDevice } from '../sync/device-stock';
 import { liveSignalOf } from '../sync/live-signal';

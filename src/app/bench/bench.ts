@@ -3,7 +3,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
-import { AccountSession } from '../account/account-session';
+import { AccountSession } from '../core/account-session';
 import { BenchBoard } from './bench-board';
 
 @Component({

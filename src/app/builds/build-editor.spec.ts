@@ -5,10 +5,10 @@ import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatButtonToggleHarness } from '@angular/material/button-toggle/testing';
 import { MatFormFieldHarness } from '@angular/material/form-field/testing';
 import { MatInputHarness } from '@angular/material/input/testing';
-import { MatSelectHarness } from '@angular/material/select/testing';
 import { Router } from '@angular/router';
 import { v7 } from 'uuid';
 import { DevicePreferences } from '../core/device-preferences';
+import { ScalePickerHarness } from '../scale-tools/scale-picker-testing';
 import { BenchDb } from '../sync/bench-db';
 import { OfflineStore } from '../sync/offline-store';
 import { dropDatabase, until } from '../sync/sync-testing';
@@ -75,9 +75,8 @@ describe('BuildEditor', () => {
     await fixture.whenStable();
   }
 
-  async function chooseScale(option: string): Promise<void> {
-    await (await loader.getHarness(MatSelectHarness)).clickOptions({ text: option });
-    await fixture.whenStable();
+  function scalePicker(): Promise<ScalePickerHarness> {
+    return loader.getHarness(ScalePickerHarness);
   }
 
   function url(): string {
@@ -96,7 +95,7 @@ describe('BuildEditor', () => {
     });
 
     it('should start at HO, planning, with the base size to type', async () => {
-      expect(await (await loader.getHarness(MatSelectHarness)).getValueText()).toBe('HO · 1:87.1');
+      expect(await (await scalePicker()).getScaleText()).toBe('HO · 1:87.1');
       expect(await (await loader.getHarness(MatButtonToggleHarness.with({ text: 'Planning' }))).isChecked()).toBeTrue();
       expect(await (await input('Base width')).getType()).toBe('text');
       expect(await (await (await input('Base width')).host()).getAttribute('inputmode')).toBe('decimal');
@@ -121,7 +120,7 @@ describe('BuildEditor', () => {
       await type('Base width', '250');
       await type('Base depth', '100');
 
-      await chooseScale('N · 1:160');
+      await (await scalePicker()).chooseScale('N · 1:160');
 
       expect(text('[data-result="worked"]')).toBe('Shows 40 m × 16 m of the real world at N 1:160');
     });
@@ -129,7 +128,7 @@ describe('BuildEditor', () => {
     it('should carry the sizes over when the other side is chosen for typing', async () => {
       await type('Base width', '250');
       await type('Base depth', '100');
-      await chooseScale('N · 1:160');
+      await (await scalePicker()).chooseScale('N · 1:160');
 
       await toggle('Real footprint');
 
@@ -140,7 +139,7 @@ describe('BuildEditor', () => {
 
     it('should save the build in the device store at once and open it', async () => {
       await type('Name', '  Riverbank ');
-      await chooseScale('N · 1:160');
+      await (await scalePicker()).chooseScale('N · 1:160');
       await toggle('Building');
       await type('Base width', '250');
       await type('Base depth', '100');
@@ -172,8 +171,8 @@ describe('BuildEditor', () => {
 
     it('should save a ratio of the modeller’s own without a standard scale', async () => {
       await type('Name', 'Dockside');
-      await chooseScale('Other 1:N…');
-      await type('N of 1:N', '100');
+      await (await scalePicker()).chooseScale('Other 1:N…');
+      await (await scalePicker()).setRatio('100');
       await type('Base width', '400');
 
       await press('Save build');
@@ -203,8 +202,8 @@ describe('BuildEditor', () => {
 
     it('should say so when the scale cannot be read, and save nothing', async () => {
       await type('Name', 'Dockside');
-      await chooseScale('Other 1:N…');
-      await type('N of 1:N', '0');
+      await (await scalePicker()).chooseScale('Other 1:N…');
+      await (await scalePicker()).setRatio('0');
 
       await press('Save build');
 
@@ -237,7 +236,7 @@ describe('BuildEditor', () => {
 
     beforeEach(async () => {
       configure();
-      buildId = await store.createBuild(WORKSHOP_ID, {
+      buildId = await store.create('build', WORKSHOP_ID, {
         name: 'Harbour',
         scaleRatio: 87.1,
         scaleId: 'ho',
@@ -282,7 +281,7 @@ describe('BuildEditor', () => {
     });
 
     it('should send every size again for a new scale', async () => {
-      await chooseScale('N · 1:160');
+      await (await scalePicker()).chooseScale('N · 1:160');
 
       await press('Save changes');
 

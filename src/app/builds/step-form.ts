@@ -21,7 +21,7 @@ import { v7 } from 'uuid';
 import type { ApiProblem } from '../core/api-error';
 import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';
 import { ProblemNote } from '../core/problem-note';
-import type { PickedPhoto } from '../photos/build-photos';
+import type { PickedPhoto } from '../sync/photo-upload-queue';
 import { PhotosToAdd } from '../photos/photos-to-add';
 import type { LocalStep } from '../sync/synced-records';
 import { BuildLog } from './build-log';

@@ -1,6 +1,6 @@
 import { inject, Injectable } from '@angular/core';
 import { summariseCosts, type CostReport, type CostRow } from '@benchtide/shared';
-import { AccountSession } from '../account/account-session';
+import { AccountSession } from '../core/account-session';
 import { BenchDb } from '../sync/bench-db';
 import { liveSignalOf } from '../sync/live-signal';
 

@@ -2,7 +2,7 @@ import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 import type { SessionView } from '@benchtide/shared';
 import { v7 } from 'uuid';
-import { AccountSession } from '../account/account-session';
+import { AccountSession } from '../core/account-session';
 import { BenchIcons } from '../core/bench-icons';
 import { BENCH_DB_NAME, BenchDb } from '../sync/bench-db';
 import { dropDatabase, until } from '../sync/sync-testing';

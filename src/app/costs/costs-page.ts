@@ -6,7 +6,7 @@ import { MatTableModule } from '@angular/material/table';
 import { RouterLink } from '@angular/router';
 import { formatMoney, type CostLine } from '@benchtide/shared';
 import { format } from 'date-fns';
-import { AccountSession } from '../account/account-session';
+import { AccountSession } from '../core/account-session';
 import { Connectivity } from '../core/connectivity';
 import { CostBook } from './cost-book';
 import { CostChart } from './cost-chart';

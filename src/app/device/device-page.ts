@@ -4,7 +4,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { RouterLink } from '@angular/router';
 import { format, formatDistanceToNow } from 'date-fns';
-import { AccountSession } from '../account/account-session';
+import { AccountSession } from '../core/account-session';
 import { InstallOffer } from '../core/install-offer';
 import { PhotoUploadList } from '../photos/photo-upload-list';
 import { StorageHealth } from '../sync/storage-health';

@@ -3,7 +3,7 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { v7 } from 'uuid';
-import type { PickedPhoto } from './build-photos';
+import type { PickedPhoto } from '../sync/photo-upload-queue';
 import { checkPhoto } from './photo-checks';
 import { PhotoIcons } from './photo-icons';
 import { readTakenTimes } from './taken-time';

@@ -2,8 +2,9 @@ import { ChangeDetectionStrategy, Component, computed, inject, input } from '@an
 import { MatDialog } from '@angular/material/dialog';
 import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
+import type { PhotoTarget, PickedPhoto } from '../sync/photo-upload-queue';
 import type { LocalBuild } from '../sync/synced-records';
-import { BuildPhotos, type BuildPhoto, type PhotoTarget, type PickedPhoto } from './build-photos';
+import { BuildPhotos, type BuildPhoto } from './build-photos';
 import { PhotoPicker } from './photo-picker';
 import { PhotoThumb } from './photo-thumb';
 import { openPhotoViewer } from './photo-viewer';

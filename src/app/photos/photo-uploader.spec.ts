@@ -4,10 +4,11 @@ import { TestBed } from '@angular/core/testing';
 import { v7 } from 'uuid';
 import { BENCH_DB_NAME, BenchDb } from '../sync/bench-db';
 import { OfflineStore } from '../sync/offline-store';
+import type { PickedPhoto } from '../sync/photo-upload-queue';
+import { PHOTO_UPLOAD_BACKEND, PhotoUploader, UPLOAD_STALL_MS } from '../sync/photo-uploader';
 import type { PhotoUploadRow } from '../sync/synced-records';
 import { dropDatabase, nextTask, until } from '../sync/sync-testing';
-import { BuildPhotos, type PickedPhoto } from './build-photos';
-import { PHOTO_UPLOAD_BACKEND, PhotoUploader, UPLOAD_STALL_MS } from './photo-uploader';
+import { BuildPhotos } from './build-photos';
 import { picked, pictureFile, serverPhoto } from './photos-testing';
 
 const WORKSHOP = v7();
@@ -37,7 +38,7 @@ describe('PhotoUploader', () => {
     db = TestBed.inject(BenchDb);
     photos = TestBed.inject(BuildPhotos);
     uploader = TestBed.inject(PhotoUploader);
-    buildId = await TestBed.inject(OfflineStore).createBuild(WORKSHOP, {
+    buildId = await TestBed.inject(OfflineStore).create('build', WORKSHOP, {
       name: 'Harbour',
       scaleRatio: 87.1,
       status: 'building',

@@ -1,7 +1,7 @@
 import type { PhotoRecord } from '@benchtide/shared';
 import { v7 } from 'uuid';
 import { nextTask } from '../sync/sync-testing';
-import type { PickedPhoto } from './build-photos';
+import type { PickedPhoto } from '../sync/photo-upload-queue';
 
 /**
  * For the photo specs: real pictures drawn in the browser, with an EXIF block written by hand where a spec

@@ -1,7 +1,7 @@
 import { ChangeDetectionStrategy, Component, input, model } from '@angular/core';
 import { MatButtonModule } from '@angular/material/button';
 import { format } from 'date-fns';
-import type { PickedPhoto } from './build-photos';
+import type { PickedPhoto } from '../sync/photo-upload-queue';
 import { PhotoPicker } from './photo-picker';
 import { PhotoThumb } from './photo-thumb';
 

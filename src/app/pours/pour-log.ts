@@ -1,6 +1,6 @@
 import { inject, Injectable, type Injector, type Signal } from '@angular/core';
 import { type NewPour, type ShelfContainer } from '@benchtide/shared';
-import { AccountSession } from '../account/account-session';
+import { AccountSession } from '../core/account-session';
 import { BenchDb } from '../sync/bench-db';
 import { remainingOnDevice } from '../sync/device-stock';
 import { liveSignalOf } from '../sync/live-signal';

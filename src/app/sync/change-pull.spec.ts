@@ -6,9 +6,9 @@ import { v7 } from 'uuid';
 import { BENCH_DB_NAME, BenchDb } from './bench-db';
 import { ChangePull } from './change-pull';
 import { OfflineStore } from './offline-store';
+import { PhotoUploadQueue } from './photo-upload-queue';
 import type { LocalContainer, LocalLedgerEntry, LocalMaterial, LocalPour } from './synced-records';
 import { dropDatabase, serverBuild, SyncServer, TEST_DATA_SHEET } from './sync-testing';
-import { BuildPhotos } from '../photos/build-photos';
 import { picked, pictureFile, serverPhoto } from '../photos/photos-testing';
 
 const WORKSHOP = v7();
@@ -82,7 +82,7 @@ describe('ChangePull', () => {
     const [edited, deleted, shortLived] = [v7(), v7(), v7()];
     const store = TestBed.inject(OfflineStore);
     await db.builds.bulkPut([serverBuild(WORKSHOP, edited, 4), serverBuild(WORKSHOP, deleted, 5)]);
-    await store.patchBuild(WORKSHOP, edited, { name: 'Harbour at dusk' });
+    await store.patch('build', WORKSHOP, edited, { name: 'Harbour at dusk' });
     const tombstone = { deletedAt: '2025-03-02T09:00:00.000Z' };
 
     const pulled = pull.pull(WORKSHOP);
@@ -129,7 +129,7 @@ describe('ChangePull', () => {
       const [old, fresh, unconfirmed] = [v7(), v7(), v7()];
       const otherWorkshop = serverBuild(OTHER_WORKSHOP, v7(), 2);
       await db.builds.bulkPut([serverBuild(WORKSHOP, old, 39), otherWorkshop]);
-      await TestBed.inject(OfflineStore).createBuild(WORKSHOP, {
+      await TestBed.inject(OfflineStore).create('build', WORKSHOP, {
         id: unconfirmed,
         name: 'Quarry',
         scaleRatio: 35,
@@ -304,7 +304,7 @@ describe('ChangePull', () => {
         picked(await pictureFile('waiting.jpg')),
         picked(await pictureFile('deleted.jpg')),
       ];
-      await TestBed.inject(BuildPhotos).add(WORKSHOP, { buildId }, [sent, waiting, deletedElsewhere]);
+      await TestBed.inject(PhotoUploadQueue).add(WORKSHOP, { buildId }, [sent, waiting, deletedElsewhere]);
 
       const pulled = pull.pull(WORKSHOP);
       const changes = [
@@ -322,7 +322,7 @@ describe('ChangePull', () => {
 
     it('should keep photos not yet sent when the server asks to start over', async () => {
       const waiting = picked(await pictureFile('waiting.jpg'));
-      await TestBed.inject(BuildPhotos).add(WORKSHOP, { buildId: v7() }, [waiting]);
+      await TestBed.inject(PhotoUploadQueue).add(WORKSHOP, { buildId: v7() }, [waiting]);
       await db.photos.put(serverPhoto(WORKSHOP, v7(), v7(), 2));
 
       const pulled = pull.pull(WORKSHOP);

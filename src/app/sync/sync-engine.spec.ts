@@ -3,14 +3,14 @@ import { HttpTestingController, provideHttpClientTesting } from '@angular/common
 import { TestBed } from '@angular/core/testing';
 import type { Mutation, SessionView } from '@benchtide/shared';
 import { v7 } from 'uuid';
-import { AccountSession } from '../account/account-session';
-import { BuildPhotos } from '../photos/build-photos';
-import { PHOTO_UPLOAD_BACKEND } from '../photos/photo-uploader';
+import { AccountSession } from '../core/account-session';
 import { picked, pictureFile, serverPhoto } from '../photos/photos-testing';
 import { BENCH_DB_NAME, BenchDb } from './bench-db';
 import { fixesFor } from './change-fixes';
 import { OfflineStore } from './offline-store';
 import { NOT_A_MEMBER } from './outbox-push';
+import { PhotoUploadQueue } from './photo-upload-queue';
+import { PHOTO_UPLOAD_BACKEND } from './photo-uploader';
 import { retryDelayMs } from './retry-delay';
 import { SYNC_EVERY_MS, SyncEngine } from './sync-engine';
 import { dropDatabase, NOTHING_NEW, serverBuild, SyncServer, until } from './sync-testing';
@@ -57,7 +57,7 @@ describe('SyncEngine', () => {
   });
 
   const createBuild = () =>
-    TestBed.inject(OfflineStore).createBuild(WORKSHOP, { name: 'Harbour', scaleRatio: 87, status: 'planning' });
+    TestBed.inject(OfflineStore).create('build', WORKSHOP, { name: 'Harbour', scaleRatio: 87, status: 'planning' });
 
   it('should push the outbox, then pull, and show when it last synced', async () => {
     const id = await createBuild();
@@ -193,7 +193,7 @@ describe('SyncEngine', () => {
       const store = TestBed.inject(OfflineStore);
       await createBuild();
       await createBuild();
-      await store.createBuild(OTHER_WORKSHOP, { name: 'Quarry', scaleRatio: 35, status: 'planning' });
+      await store.create('build', OTHER_WORKSHOP, { name: 'Quarry', scaleRatio: 35, status: 'planning' });
 
       const synced = engine.syncNow();
       (await server.nextPush(WORKSHOP)).flush(UNKNOWN, { status: 404, statusText: 'Not Found' });
@@ -384,7 +384,7 @@ describe('SyncEngine', () => {
 
     async function addPhoto(buildId: string) {
       const photo = picked(await pictureFile('bench.jpg'));
-      await TestBed.inject(BuildPhotos).add(WORKSHOP, { buildId }, [photo]);
+      await TestBed.inject(PhotoUploadQueue).add(WORKSHOP, { buildId }, [photo]);
       return photo;
     }
 

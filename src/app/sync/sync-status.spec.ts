@@ -1,13 +1,13 @@
 import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { provideHttpClient } from '@angular/common/http';
 import { signal } from '@angular/core';
-import { TestBed, type ComponentFixture } from '@angular/core/testing';
-import { MatIconHarness } from '@angular/material/icon/testing';
+import { TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
 import { BenchIcons } from '../core/bench-icons';
-import { BuildPhotos } from '../photos/build-photos';
+import { PhotoUploadQueue } from './photo-upload-queue';
 import { SyncEngine } from './sync-engine';
 import { SyncStatus } from './sync-status';
+import { SyncStatusHarness } from './sync-status-testing';
 import type { OutboxRow } from './synced-records';
 
 /** The engine's signals, set by each spec. */
@@ -31,9 +31,9 @@ const REJECTED = { seq: 4, state: 'rejected', reason: { code: 'forbidden', messa
 describe('SyncStatus', () => {
   let engine: EngineSignals;
   let photos: PhotoCounts;
-  let fixture: ComponentFixture<SyncStatus>;
+  let chip: SyncStatusHarness;
 
-  beforeEach(() => {
+  beforeEach(async () => {
     engine = new EngineSignals();
     photos = new PhotoCounts();
     TestBed.configureTestingModule({
@@ -42,22 +42,15 @@ describe('SyncStatus', () => {
         provideHttpClient(),
         provideRouter([]),
         { provide: SyncEngine, useValue: engine },
-        { provide: BuildPhotos, useValue: photos },
+        { provide: PhotoUploadQueue, useValue: photos },
       ],
     });
     TestBed.inject(BenchIcons).register();
-    fixture = TestBed.createComponent(SyncStatus);
+    chip = await TestbedHarnessEnvironment.harnessForFixture(TestBed.createComponent(SyncStatus), SyncStatusHarness);
   });
 
   async function shown(): Promise<{ label: string; icon: string | null; attention: boolean }> {
-    await fixture.whenStable();
-    const chip = fixture.nativeElement.querySelector('a') as HTMLAnchorElement;
-    const icon = await TestbedHarnessEnvironment.loader(fixture).getHarness(MatIconHarness);
-    return {
-      label: chip.querySelector('.label')?.textContent?.trim() ?? '',
-      icon: await icon.getName(),
-      attention: chip.classList.contains('attention'),
-    };
+    return { label: await chip.getLabel(), icon: await chip.getIconName(), attention: await chip.needsAttention() };
   }
 
   describe('what it says', () => {
@@ -110,25 +103,16 @@ describe('SyncStatus', () => {
   });
 
   describe('for screen readers', () => {
-    function description(): string {
-      const chip = fixture.nativeElement.querySelector('a') as HTMLAnchorElement;
-      const id = chip.getAttribute('aria-describedby') ?? '';
-      return fixture.nativeElement.querySelector(`[id="${id}"]`)?.textContent ?? '';
-    }
-
     it('should announce a change of status politely', async () => {
-      await fixture.whenStable();
-
-      expect(fixture.nativeElement.querySelector('.label').getAttribute('aria-live')).toBe('polite');
+      expect(await chip.getLabelLiveness()).toBe('polite');
     });
 
     it('should tell when it last synced, and why it needs attention', async () => {
       engine.lastSyncedAt.set(new Date(2025, 2, 1, 14, 5).toISOString());
       engine.sessionEnded.set(true);
       engine.rejected.set([REJECTED as OutboxRow, { ...REJECTED, seq: 5 } as OutboxRow]);
-      await fixture.whenStable();
 
-      expect(description()).toBe(
+      expect(await chip.getDescription()).toBe(
         'Sign in again to send the changes waiting on this device. 2 changes could not be saved. ' +
           'Last synced at 14:05, 1 Mar. Opens the changes kept on this device.',
       );
@@ -136,31 +120,25 @@ describe('SyncStatus', () => {
 
     it('should say how many photos could not be sent', async () => {
       photos.refusedCount.set(2);
-      await fixture.whenStable();
 
-      expect(description()).toBe(
+      expect(await chip.getDescription()).toBe(
         '2 photos could not be sent. Not synced yet on this device. Opens the changes kept on this device.',
       );
     });
 
     it('should say when this device has not synced yet', async () => {
-      await fixture.whenStable();
-
-      expect(description()).toBe('Not synced yet on this device. Opens the changes kept on this device.');
+      expect(await chip.getDescription()).toBe('Not synced yet on this device. Opens the changes kept on this device.');
     });
   });
 
   it('should be at least 48 px high, to be easy to tap', async () => {
-    await fixture.whenStable();
+    const size = await chip.getSize();
 
-    const chip = fixture.nativeElement.querySelector('a') as HTMLAnchorElement;
-    expect(chip.getBoundingClientRect().height).toBeGreaterThanOrEqual(48);
-    expect(chip.getBoundingClientRect().width).toBeGreaterThanOrEqual(48);
+    expect(size.height).toBeGreaterThanOrEqual(48);
+    expect(size.width).toBeGreaterThanOrEqual(48);
   });
 
   it('should open the list of changes on this device', async () => {
-    await fixture.whenStable();
-
-    expect((fixture.nativeElement.querySelector('a') as HTMLAnchorElement).getAttribute('href')).toBe('/device');
+    expect(await chip.getLink()).toBe('/device');
   });
 });

@@ -2,7 +2,7 @@ import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/c
 import { MatIconModule } from '@angular/material/icon';
 import { RouterLink } from '@angular/router';
 import { format } from 'date-fns';
-import { BuildPhotos } from '../photos/build-photos';
+import { PhotoUploadQueue } from './photo-upload-queue';
 import { SyncEngine } from './sync-engine';
 
 interface Status {
@@ -71,7 +71,7 @@ let nextId = 0;
 })
 export class SyncStatus {
   private readonly engine = inject(SyncEngine);
-  private readonly photos = inject(BuildPhotos);
+  private readonly photos = inject(PhotoUploadQueue);
 
   protected readonly syncing = this.engine.syncing;
   protected readonly hintId = `bt-sync-status-hint-${nextId++}`;

@@ -7,7 +7,7 @@ import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { provideRouter, Router } from '@angular/router';
 import type { InvitationPreview, SessionView } from '@benchtide/shared';
-import { AccountSession } from '../account/account-session';
+import { AccountSession } from '../core/account-session';
 import { BenchIcons } from '../core/bench-icons';
 import { InvitationAccept } from './invitation-accept';
 

@@ -5,7 +5,7 @@ import { MatIconModule } from '@angular/material/icon';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { Router, RouterLink } from '@angular/router';
 import type { InvitationPreview } from '@benchtide/shared';
-import { AccountSession } from '../account/account-session';
+import { AccountSession } from '../core/account-session';
 import { ProblemNote } from '../core/problem-note';
 import { Submission } from '../core/submission';
 import { ROLE_DUTIES, ROLE_LABELS } from './roles';

@@ -6,7 +6,7 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { type MatSelectChange, MatSelectModule } from '@angular/material/select';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { type MemberView, memberRoleRequestSchema, ROLES, may } from '@benchtide/shared';
-import { AccountSession } from '../account/account-session';
+import { AccountSession } from '../core/account-session';
 import { ProblemNote } from '../core/problem-note';
 import { Submission } from '../core/submission';
 import { ROLE_LABELS } from './roles';

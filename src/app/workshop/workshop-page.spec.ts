@@ -10,7 +10,7 @@ import { MatInputHarness } from '@angular/material/input/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
 import { provideRouter } from '@angular/router';
 import type { InvitationView, MemberView, SessionView, WorkshopView } from '@benchtide/shared';
-import { AccountSession } from '../account/account-session';
+import { AccountSession } from '../core/account-session';
 import { BenchIcons } from '../core/bench-icons';
 import { WorkshopPage } from './workshop-page';
 

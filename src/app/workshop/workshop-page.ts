@@ -8,7 +8,7 @@ import { MatInputModule } from '@angular/material/input';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { ROLES, workshopRequestSchema, may } from '@benchtide/shared';
-import { AccountSession } from '../account/account-session';
+import { AccountSession } from '../core/account-session';
 import { ProblemNote } from '../core/problem-note';
 import { fieldMessage, Submission } from '../core/submission';
 import { InvitationList } from './invitation-list';

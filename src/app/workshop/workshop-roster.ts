@@ -5,7 +5,7 @@ import { toObservable, toSignal } from '@angular/core/rxjs-interop';
 import type { InvitationView, invitationRequestSchema, MemberView, Role } from '@benchtide/shared';
 import { catchError, firstValueFrom, forkJoin, map, of, startWith, switchMap, type Observable } from 'rxjs';
 import type * as z from 'zod';
-import { AccountSession } from '../account/account-session';
+import { AccountSession } from '../core/account-session';
 import { apiError, type ApiProblem } from '../core/api-error';
 
 interface Roster {

@@ -3,7 +3,7 @@ import { Injectable, inject } from '@angular/core';
 import type { InvitationPreview, WorkshopView, workshopRequestSchema } from '@benchtide/shared';
 import { firstValueFrom } from 'rxjs';
 import type * as z from 'zod';
-import { AccountSession } from '../account/account-session';
+import { AccountSession } from '../core/account-session';
 
 type WorkshopRequest = z.output<typeof workshopRequestSchema>;
 

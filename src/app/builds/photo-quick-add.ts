@@ -4,12 +4,12 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { RouterLink } from '@angular/router';
-import { BuildLog } from '../builds/build-log';
-import { WorkshopNeeded } from '../builds/workshop-needed';
 import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';
-import type { PickedPhoto } from './build-photos';
-import { PhotoPicker } from './photo-picker';
-import { PhotoStoring } from './photo-storing';
+import { PhotoPicker } from '../photos/photo-picker';
+import { PhotoStoring } from '../photos/photo-storing';
+import type { PickedPhoto } from '../sync/photo-upload-queue';
+import { BuildLog } from './build-log';
+import { WorkshopNeeded } from './workshop-needed';
 
 /** What was just added, for the note that says so. */
 interface Added {

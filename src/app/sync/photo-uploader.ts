@@ -7,12 +7,13 @@ import {
   type HttpEvent,
 } from '@angular/common/http';
 import { inject, Injectable, InjectionToken } from '@angular/core';
+import { changeType } from '@benchtide/shared';
 import { v7 } from 'uuid';
 import { catchError, filter, lastValueFrom, tap, throwError, timeout, TimeoutError } from 'rxjs';
 import { apiError } from '../core/api-error';
-import { BenchDb } from '../sync/bench-db';
-import { OfflineStore } from '../sync/offline-store';
-import type { PhotoUploadRow } from '../sync/synced-records';
+import { BenchDb } from './bench-db';
+import { OfflineStore } from './offline-store';
+import type { PhotoUploadRow } from './synced-records';
 
 /**
  * How photos go up: through XMLHttpRequest, the one way a browser reports how much of an upload has gone
@@ -138,10 +139,10 @@ export class PhotoUploader {
       await db.photoUploads.delete(row.id);
       const photo = await db.photos.get(row.id);
       if (photo === undefined) {
-        const mutation = { type: 'photo.delete' as const, mutationId: v7(), recordId: row.id };
+        const mutation = { type: changeType('photo', 'delete'), mutationId: v7(), recordId: row.id };
         await this.store.apply(row.workshopId, mutation, async () => []);
       } else if (photo.caption !== sentCaption) {
-        await this.store.patchPhoto(row.workshopId, row.id, { caption: photo.caption });
+        await this.store.patch('photo', row.workshopId, row.id, { caption: photo.caption });
       }
     });
   }

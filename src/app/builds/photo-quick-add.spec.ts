@@ -3,12 +3,12 @@ import { TestbedHarnessEnvironment } from '@angular/cdk/testing/testbed';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { MatButtonHarness } from '@angular/material/button/testing';
 import { MatSelectHarness } from '@angular/material/select/testing';
-import { WORKSHOP_ID, buildsTestProviders, signIn } from '../builds/builds-testing';
+import { chooseFiles, eventually, pictureFile } from '../photos/photos-testing';
 import { BenchDb } from '../sync/bench-db';
 import { OfflineStore } from '../sync/offline-store';
 import { dropDatabase, until } from '../sync/sync-testing';
+import { WORKSHOP_ID, buildsTestProviders, signIn } from './builds-testing';
 import { PhotoQuickAdd } from './photo-quick-add';
-import { chooseFiles, eventually, pictureFile } from './photos-testing';
 
 describe('PhotoQuickAdd', () => {
   let fixture: ComponentFixture<PhotoQuickAdd>;
@@ -59,12 +59,12 @@ describe('PhotoQuickAdd', () => {
 
     beforeEach(async () => {
       configure('builder');
-      harbour = await store.createBuild(WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
-      canal = await store.createBuild(WORKSHOP_ID, { name: 'Canal lock', scaleRatio: 76.2, status: 'building' });
+      harbour = await store.create('build', WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
+      canal = await store.create('build', WORKSHOP_ID, { name: 'Canal lock', scaleRatio: 76.2, status: 'building' });
       await db.builds.update(harbour, { updatedAt: new Date(Date.now() - 86_400_000).toISOString() });
       await db.builds.update(canal, { updatedAt: new Date(Date.now() - 3_600_000).toISOString() });
       const happenedAt = new Date(Date.now() - 60_000).toISOString();
-      await store.createStep(WORKSHOP_ID, { buildId: harbour, kind: 'painting', title: 'Gloss', happenedAt });
+      await store.create('step', WORKSHOP_ID, { buildId: harbour, kind: 'painting', title: 'Gloss', happenedAt });
     });
 
     it('should add the photo to the build worked on last, and say where it went', async () => {
@@ -121,7 +121,7 @@ describe('PhotoQuickAdd', () => {
 
   it('should tell a viewer they cannot add photos, offering no way to', async () => {
     configure('viewer');
-    await store.createBuild(WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
+    await store.create('build', WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
     await render();
     await settle('the read-only note', () => query('[data-state="read-only"]'));
 
