@@ -151,7 +151,7 @@ export async function seedDemoBench(
     materialId: string,
     stepTitle: string,
     days: number,
-    shape: object,
+    shape: Parameters<typeof createPour>[1]['shape'],
     depthMm: number,
     roomTempC: number,
   ) => {
@@ -161,7 +161,7 @@ export async function seedDemoBench(
       buildId,
       stepId,
       materialId,
-      shape: shape as never,
+      shape,
       depthMm,
       displacedMl: 4,
       wastePercent: 10,
@@ -173,7 +173,7 @@ export async function seedDemoBench(
     });
   };
   const race = {
-    kind: 'polygon',
+    kind: 'polygon' as const,
     points: [
       { xMm: 0, yMm: 0 },
       { xMm: 380, yMm: 20 },

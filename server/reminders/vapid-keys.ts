@@ -15,12 +15,17 @@ export interface VapidKeys {
  */
 export async function vapidKeys(db: Database): Promise<VapidKeys> {
   const [stored] = await db.select().from(serverKeys).where(eq(serverKeys.name, 'vapid'));
-  if (stored) return stored.value as unknown as VapidKeys;
+  if (stored) return keyPair(stored.value);
   const fresh = webpush.generateVAPIDKeys();
   await db
     .insert(serverKeys)
     .values({ name: 'vapid', value: { ...fresh } })
     .onConflictDoNothing();
   const [kept] = await db.select().from(serverKeys).where(eq(serverKeys.name, 'vapid'));
-  return kept!.value as unknown as VapidKeys;
+  return keyPair(kept!.value);
+}
+
+function keyPair({ publicKey, privateKey }: Record<string, string>): VapidKeys {
+  if (!publicKey || !privateKey) throw new Error('The stored VAPID key pair lacks a key; remove it to make a new one.');
+  return { publicKey, privateKey };
 }
