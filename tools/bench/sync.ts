@@ -17,7 +17,8 @@ import { createWorkshop } from '../../server/workshops/workshop-service.js';
 
 const PUSHED = 1_000;
 const PULLED = 10_000;
-const PUSH_TARGET_RATIO = 3;
+const PUSH_TARGET_RATIO = 2.5;
+const ROUNDS = 3;
 
 const url = new URL(process.env['DATABASE_URL'] ?? 'postgres://benchtide@127.0.0.1:54329/benchtide');
 const admin = new pg.Client({ connectionString: url.toString() });
@@ -39,36 +40,52 @@ async function timed(run: () => Promise<unknown>): Promise<number> {
   return performance.now() - started;
 }
 
-// Push: the outbox as a device sends it, in batches of MAX_PUSH.
-const pushWorkshop = await createWorkshop(ctx.db, user!.id, 'Push bench');
-const mutations = Array.from({ length: PUSHED }, (_, i) => ({
-  type: changeType('build', 'create'),
-  mutationId: v7(),
-  data: build(`Pushed ${i}`),
-}));
-const pushMs = await timed(async () => {
-  for (let i = 0; i < mutations.length; i += MAX_PUSH) {
-    const answer = await push(ctx, user!.id, pushWorkshop.id, mutations.slice(i, i + MAX_PUSH));
-    if (answer.results.some((result) => result.status !== 'applied')) throw new Error('a benchmark change was refused');
-  }
-});
+// Push and raw inserts take turns, ROUNDS times, each on a workshop of its own; the medians are
+// compared, so one slow round (a checkpoint, the machine busy) does not decide the ratio.
+async function pushOnce(round: number): Promise<number> {
+  const pushWorkshop = await createWorkshop(ctx.db, user!.id, `Push bench ${round}`);
+  const mutations = Array.from({ length: PUSHED }, (_, i) => ({
+    type: changeType('build', 'create'),
+    mutationId: v7(),
+    data: build(`Pushed ${i}`),
+  }));
+  return timed(async () => {
+    for (let i = 0; i < mutations.length; i += MAX_PUSH) {
+      const answer = await push(ctx, user!.id, pushWorkshop.id, mutations.slice(i, i + MAX_PUSH));
+      if (answer.results.some((result) => result.status !== 'applied'))
+        throw new Error('a benchmark change was refused');
+    }
+  });
+}
 
 // Raw inserts of the same rows a push writes (each record and the record of its change), in the
 // same batches, one transaction each.
-const rawWorkshop = await createWorkshop(ctx.db, user!.id, 'Raw bench');
-const rows = Array.from({ length: PUSHED }, (_, i) => build(`Raw ${i}`));
-const rawMs = await timed(async () => {
-  for (let i = 0; i < rows.length; i += MAX_PUSH) {
-    await ctx.db.transaction(async (tx) => {
-      for (const row of rows.slice(i, i + MAX_PUSH)) {
-        await tx.execute(sql`INSERT INTO builds (id, workshop_id, name, scale_ratio, status, notes, change_number)
-          VALUES (${row.id}, ${rawWorkshop.id}, ${row.name}, ${row.scaleRatio}, ${row.status}, '', ${i + 1})`);
-        await tx.execute(sql`INSERT INTO pushed_mutations (mutation_id, workshop_id, user_id, result)
-          VALUES (${v7()}, ${rawWorkshop.id}, ${user!.id}, ${JSON.stringify({ status: 'applied' })}::jsonb)`);
-      }
-    });
-  }
-});
+async function rawOnce(round: number): Promise<number> {
+  const rawWorkshop = await createWorkshop(ctx.db, user!.id, `Raw bench ${round}`);
+  const rows = Array.from({ length: PUSHED }, (_, i) => build(`Raw ${i}`));
+  return timed(async () => {
+    for (let i = 0; i < rows.length; i += MAX_PUSH) {
+      await ctx.db.transaction(async (tx) => {
+        for (const row of rows.slice(i, i + MAX_PUSH)) {
+          await tx.execute(sql`INSERT INTO builds (id, workshop_id, name, scale_ratio, status, notes, change_number)
+            VALUES (${row.id}, ${rawWorkshop.id}, ${row.name}, ${row.scaleRatio}, ${row.status}, '', ${i + 1})`);
+          await tx.execute(sql`INSERT INTO pushed_mutations (mutation_id, workshop_id, user_id, result)
+            VALUES (${v7()}, ${rawWorkshop.id}, ${user!.id}, ${JSON.stringify({ status: 'applied' })}::jsonb)`);
+        }
+      });
+    }
+  });
+}
+
+const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)]!;
+const pushRounds: number[] = [];
+const rawRounds: number[] = [];
+for (let round = 0; round < ROUNDS; round += 1) {
+  rawRounds.push(await rawOnce(round));
+  pushRounds.push(await pushOnce(round));
+}
+const pushMs = median(pushRounds);
+const rawMs = median(rawRounds);
 
 // Pull: 10,000 changes in pages of 1,000, beside a plain select of the same rows.
 const pullWorkshop = await createWorkshop(ctx.db, user!.id, 'Pull bench');
@@ -96,7 +113,7 @@ const selectMs = await timed(() =>
 await database.pool.end();
 const pushRatio = pushMs / rawMs;
 console.log(
-  `push ${PUSHED} mutations: ${pushMs.toFixed(0)} ms; raw inserts of the same rows: ${rawMs.toFixed(0)} ms; ratio ${pushRatio.toFixed(2)} (target within ${PUSH_TARGET_RATIO}x)`,
+  `push ${PUSHED} mutations: ${pushMs.toFixed(0)} ms; raw inserts of the same rows: ${rawMs.toFixed(0)} ms (medians of ${ROUNDS}); ratio ${pushRatio.toFixed(2)} (target within ${PUSH_TARGET_RATIO}x)`,
 );
 console.log(
   `pull ${PULLED} changes: ${pullMs.toFixed(0)} ms; one plain select of the same rows: ${selectMs.toFixed(0)} ms; ratio ${(pullMs / selectMs).toFixed(2)}`,
