@@ -1,4 +1,4 @@
-import { writeRecords } from '../records/unit-of-work.js';
+import { memberWrite } from '../records/member-write.js';
 import { Router } from 'express';
 import { buildPatchSchema, newBuildSchema, newStepSchema, stepPatchSchema } from '../../shared/domain-schemas.js';
 import { signedIn } from '../auth/session-middleware.js';
@@ -27,9 +27,7 @@ export function buildRoutes(ctx: ServerContext): Router {
   });
   router.post(`${base}/builds`, async (req, res) => {
     const input = validate(newBuildSchema, req.body);
-    res
-      .status(201)
-      .json(await writeRecords(ctx, signedIn(res).user.id, pathId(req.params['workshopId']), createBuild, input));
+    res.status(201).json(await memberWrite(ctx, req, res, createBuild, input));
   });
   router.get(`${base}/builds/:buildId`, async (req, res) => {
     res.json(
@@ -44,26 +42,10 @@ export function buildRoutes(ctx: ServerContext): Router {
   });
   router.patch(`${base}/builds/:buildId`, async (req, res) => {
     const patch = validate(buildPatchSchema, req.body);
-    res.json(
-      await writeRecords(
-        ctx,
-        signedIn(res).user.id,
-        pathId(req.params['workshopId']),
-        updateBuild,
-        pathId(req.params['buildId']),
-        patch,
-      ),
-    );
+    res.json(await memberWrite(ctx, req, res, updateBuild, pathId(req.params['buildId']), patch));
   });
   router.delete(`${base}/builds/:buildId`, async (req, res) => {
-    await writeRecords(
-      ctx,
-      signedIn(res).user.id,
-      pathId(req.params['workshopId']),
-      deleteBuild,
-      pathId(req.params['buildId']),
-      ctx,
-    );
+    await memberWrite(ctx, req, res, deleteBuild, pathId(req.params['buildId']), ctx);
     res.status(204).end();
   });
 
@@ -75,31 +57,14 @@ export function buildRoutes(ctx: ServerContext): Router {
   });
   router.post(`${base}/steps`, async (req, res) => {
     const input = validate(newStepSchema, req.body);
-    res
-      .status(201)
-      .json(await writeRecords(ctx, signedIn(res).user.id, pathId(req.params['workshopId']), createStep, input));
+    res.status(201).json(await memberWrite(ctx, req, res, createStep, input));
   });
   router.patch(`${base}/steps/:stepId`, async (req, res) => {
     const patch = validate(stepPatchSchema, req.body);
-    res.json(
-      await writeRecords(
-        ctx,
-        signedIn(res).user.id,
-        pathId(req.params['workshopId']),
-        updateStep,
-        pathId(req.params['stepId']),
-        patch,
-      ),
-    );
+    res.json(await memberWrite(ctx, req, res, updateStep, pathId(req.params['stepId']), patch));
   });
   router.delete(`${base}/steps/:stepId`, async (req, res) => {
-    await writeRecords(
-      ctx,
-      signedIn(res).user.id,
-      pathId(req.params['workshopId']),
-      deleteStep,
-      pathId(req.params['stepId']),
-    );
+    await memberWrite(ctx, req, res, deleteStep, pathId(req.params['stepId']));
     res.status(204).end();
   });
 

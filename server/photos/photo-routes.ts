@@ -1,4 +1,4 @@
-import { writeRecords } from '../records/unit-of-work.js';
+import { memberWrite } from '../records/member-write.js';
 import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import { pipeline } from 'node:stream/promises';
@@ -101,27 +101,11 @@ export function photoRoutes(ctx: ServerContext): Router {
 
   router.patch(`${base}/photos/:photoId`, async (req, res) => {
     const patch = validate(photoPatchSchema, req.body);
-    res.json(
-      await writeRecords(
-        ctx,
-        signedIn(res).user.id,
-        pathId(req.params['workshopId']),
-        updatePhoto,
-        pathId(req.params['photoId']),
-        patch,
-      ),
-    );
+    res.json(await memberWrite(ctx, req, res, updatePhoto, pathId(req.params['photoId']), patch));
   });
 
   router.delete(`${base}/photos/:photoId`, async (req, res) => {
-    await writeRecords(
-      ctx,
-      signedIn(res).user.id,
-      pathId(req.params['workshopId']),
-      deletePhoto,
-      pathId(req.params['photoId']),
-      ctx,
-    );
+    await memberWrite(ctx, req, res, deletePhoto, pathId(req.params['photoId']), ctx);
     res.status(204).end();
   });
 

@@ -1,4 +1,4 @@
-import { writeRecords } from '../records/unit-of-work.js';
+import { memberWrite } from '../records/member-write.js';
 import { Router } from 'express';
 import { newPourSchema } from '../../shared/domain-schemas.js';
 import { signedIn } from '../auth/session-middleware.js';
@@ -21,9 +21,7 @@ export function pourRoutes(ctx: ServerContext): Router {
   });
   router.post(`${base}/pours`, async (req, res) => {
     const input = validate(newPourSchema, req.body);
-    res
-      .status(201)
-      .json(await writeRecords(ctx, signedIn(res).user.id, pathId(req.params['workshopId']), createPour, input));
+    res.status(201).json(await memberWrite(ctx, req, res, createPour, input));
   });
   router.get(`${base}/pours/:pourId`, async (req, res) => {
     res.json(
@@ -31,13 +29,7 @@ export function pourRoutes(ctx: ServerContext): Router {
     );
   });
   router.delete(`${base}/pours/:pourId`, async (req, res) => {
-    await writeRecords(
-      ctx,
-      signedIn(res).user.id,
-      pathId(req.params['workshopId']),
-      deletePour,
-      pathId(req.params['pourId']),
-    );
+    await memberWrite(ctx, req, res, deletePour, pathId(req.params['pourId']));
     res.status(204).end();
   });
 

@@ -42,6 +42,22 @@ export class AfterCommit {
   }
 }
 
+/** A unit of work in `tx` with the workshop's next change number; the workshop stays locked until the commit. */
+export async function openWork(
+  ctx: ServerContext,
+  tx: Transaction,
+  who: { role: Role; userId: string; workshopId: string },
+  later: AfterCommit,
+): Promise<UnitOfWork> {
+  return {
+    tx,
+    changeNumber: await stampChange(tx, who.workshopId),
+    ...who,
+    clock: ctx.clock,
+    afterCommit: (work) => later.add(work),
+  };
+}
+
 /** A REST write: the caller's role checked, one transaction with the workshop's next change number. */
 export async function inUnitOfWork<T>(
   ctx: ServerContext,
@@ -52,15 +68,7 @@ export async function inUnitOfWork<T>(
   const role = await authorize(ctx.db, userId, workshopId, 'write-builds');
   const later = new AfterCommit();
   const result = await ctx.db.transaction(async (tx) =>
-    write({
-      tx,
-      changeNumber: await stampChange(tx, workshopId),
-      role,
-      userId,
-      workshopId,
-      clock: ctx.clock,
-      afterCommit: (work) => later.add(work),
-    }),
+    write(await openWork(ctx, tx, { role, userId, workshopId }, later)),
   );
   await later.run();
   return result;

@@ -1,4 +1,4 @@
-import { writeRecords } from '../records/unit-of-work.js';
+import { memberWrite } from '../records/member-write.js';
 import { Router } from 'express';
 import {
   containerPatchSchema,
@@ -42,9 +42,7 @@ export function shelfRoutes(ctx: ServerContext): Router {
   });
   router.post(`${base}/materials`, async (req, res) => {
     const input = validate(newMaterialSchema, req.body);
-    res
-      .status(201)
-      .json(await writeRecords(ctx, signedIn(res).user.id, pathId(req.params['workshopId']), createMaterial, input));
+    res.status(201).json(await memberWrite(ctx, req, res, createMaterial, input));
   });
   router.get(`${base}/materials/:materialId`, async (req, res) => {
     const [workshopId, materialId] = ids(req.params, 'materialId');
@@ -52,33 +50,16 @@ export function shelfRoutes(ctx: ServerContext): Router {
   });
   router.patch(`${base}/materials/:materialId`, async (req, res) => {
     const patch = validate(materialPatchSchema, req.body);
-    res.json(
-      await writeRecords(
-        ctx,
-        signedIn(res).user.id,
-        pathId(req.params['workshopId']),
-        updateMaterial,
-        pathId(req.params['materialId']),
-        patch,
-      ),
-    );
+    res.json(await memberWrite(ctx, req, res, updateMaterial, pathId(req.params['materialId']), patch));
   });
   router.delete(`${base}/materials/:materialId`, async (req, res) => {
-    await writeRecords(
-      ctx,
-      signedIn(res).user.id,
-      pathId(req.params['workshopId']),
-      deleteMaterial,
-      pathId(req.params['materialId']),
-    );
+    await memberWrite(ctx, req, res, deleteMaterial, pathId(req.params['materialId']));
     res.status(204).end();
   });
 
   router.post(`${base}/containers`, async (req, res) => {
     const input = validate(newContainerSchema, req.body);
-    res
-      .status(201)
-      .json(await writeRecords(ctx, signedIn(res).user.id, pathId(req.params['workshopId']), createContainer, input));
+    res.status(201).json(await memberWrite(ctx, req, res, createContainer, input));
   });
   router.get(`${base}/containers/:containerId`, async (req, res) => {
     const [workshopId, containerId] = ids(req.params, 'containerId');
@@ -86,56 +67,19 @@ export function shelfRoutes(ctx: ServerContext): Router {
   });
   router.patch(`${base}/containers/:containerId`, async (req, res) => {
     const patch = validate(containerPatchSchema, req.body);
-    res.json(
-      await writeRecords(
-        ctx,
-        signedIn(res).user.id,
-        pathId(req.params['workshopId']),
-        updateContainer,
-        pathId(req.params['containerId']),
-        patch,
-      ),
-    );
+    res.json(await memberWrite(ctx, req, res, updateContainer, pathId(req.params['containerId']), patch));
   });
   router.delete(`${base}/containers/:containerId`, async (req, res) => {
-    await writeRecords(
-      ctx,
-      signedIn(res).user.id,
-      pathId(req.params['workshopId']),
-      deleteContainer,
-      pathId(req.params['containerId']),
-    );
+    await memberWrite(ctx, req, res, deleteContainer, pathId(req.params['containerId']));
     res.status(204).end();
   });
   router.post(`${base}/containers/:containerId/waste`, async (req, res) => {
     const input = validate(wasteSchema, req.body);
-    res
-      .status(201)
-      .json(
-        await writeRecords(
-          ctx,
-          signedIn(res).user.id,
-          pathId(req.params['workshopId']),
-          recordWaste,
-          pathId(req.params['containerId']),
-          input,
-        ),
-      );
+    res.status(201).json(await memberWrite(ctx, req, res, recordWaste, pathId(req.params['containerId']), input));
   });
   router.post(`${base}/containers/:containerId/stocktake`, async (req, res) => {
     const input = validate(stocktakeSchema, req.body);
-    res
-      .status(201)
-      .json(
-        await writeRecords(
-          ctx,
-          signedIn(res).user.id,
-          pathId(req.params['workshopId']),
-          recordStocktake,
-          pathId(req.params['containerId']),
-          input,
-        ),
-      );
+    res.status(201).json(await memberWrite(ctx, req, res, recordStocktake, pathId(req.params['containerId']), input));
   });
 
   return router;

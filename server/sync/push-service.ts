@@ -11,8 +11,7 @@ import { may } from '../../shared/workshop-policy.js';
 import type { ServerContext } from '../context.js';
 import { AppError } from '../core/app-error.js';
 import { pushedMutations } from '../db/schema/index.js';
-import { stampChange } from '../records/change-stamp.js';
-import { AfterCommit, type UnitOfWork } from '../records/unit-of-work.js';
+import { AfterCommit, openWork, type UnitOfWork } from '../records/unit-of-work.js';
 import { authorize } from '../workshops/workshop-service.js';
 import { serviceOf } from './record-services.js';
 
@@ -77,15 +76,7 @@ export async function push(
         results.push(known);
         continue;
       }
-      work ??= {
-        tx,
-        changeNumber: await stampChange(tx, workshopId),
-        role,
-        userId,
-        workshopId,
-        clock: ctx.clock,
-        afterCommit: (job) => later.add(job),
-      };
+      work ??= await openWork(ctx, tx, { role, userId, workshopId }, later);
       const result = await applyOne(ctx, work, later, mutationId, item);
       recorded.push({ mutationId, workshopId, userId, result });
       answered.set(mutationId, result);
