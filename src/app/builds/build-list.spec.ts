@@ -111,15 +111,28 @@ describe('BuildList', () => {
     });
 
     it('should move a build up when a step is logged on it', async () => {
-      const harbour = await store.create('build', WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
-      const canal = await store.create('build', WORKSHOP_ID, { name: 'Canal lock', scaleRatio: 76.2, status: 'building' });
+      const harbour = await store.create('build', WORKSHOP_ID, {
+        name: 'Harbour',
+        scaleRatio: 87.1,
+        status: 'building',
+      });
+      const canal = await store.create('build', WORKSHOP_ID, {
+        name: 'Canal lock',
+        scaleRatio: 76.2,
+        status: 'building',
+      });
       await db.builds.update(harbour, { updatedAt: new Date(Date.now() - 2 * 86_400_000).toISOString() });
       await db.builds.update(canal, { updatedAt: new Date(Date.now() - 86_400_000).toISOString() });
       await render();
       await settle('the canal first', () => text(cards()[0]?.querySelector('.name') ?? null) === 'Canal lock');
 
       const happenedAt = new Date(Date.now() - 10 * 60_000).toISOString();
-      await store.create('step', WORKSHOP_ID, { buildId: harbour, kind: 'painting', title: 'Dark water base', happenedAt });
+      await store.create('step', WORKSHOP_ID, {
+        buildId: harbour,
+        kind: 'painting',
+        title: 'Dark water base',
+        happenedAt,
+      });
 
       await settle('the harbour first', () => text(cards()[0]?.querySelector('.name') ?? null) === 'Harbour');
       expect(field(cards()[0]!, 'activity')).toBe('Last activity 10 minutes ago');
@@ -127,8 +140,16 @@ describe('BuildList', () => {
     });
 
     it('should add up the cost of the stock its pours used, each currency on its own', async () => {
-      const harbour = await store.create('build', WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
-      const other = await store.create('build', WORKSHOP_ID, { name: 'Canal lock', scaleRatio: 76.2, status: 'building' });
+      const harbour = await store.create('build', WORKSHOP_ID, {
+        name: 'Harbour',
+        scaleRatio: 87.1,
+        status: 'building',
+      });
+      const other = await store.create('build', WORKSHOP_ID, {
+        name: 'Canal lock',
+        scaleRatio: 76.2,
+        status: 'building',
+      });
       const resin = await putMaterial(db, 'Clear casting resin');
       const euros = await putContainer(db, resin.id, 'EUR');
       const dollars = await putContainer(db, resin.id, 'USD');
@@ -147,7 +168,11 @@ describe('BuildList', () => {
     });
 
     it('should follow a build deleted on this device', async () => {
-      const harbour = await store.create('build', WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
+      const harbour = await store.create('build', WORKSHOP_ID, {
+        name: 'Harbour',
+        scaleRatio: 87.1,
+        status: 'building',
+      });
       await store.create('build', WORKSHOP_ID, { name: 'Canal lock', scaleRatio: 76.2, status: 'building' });
       await render();
       await settle('two cards', () => cards().length === 2);
@@ -168,7 +193,11 @@ describe('BuildList', () => {
     });
 
     it("should show a build's cover photo, from the server's thumbnail, and none on a build without one", async () => {
-      const harbour = await store.create('build', WORKSHOP_ID, { name: 'Harbour', scaleRatio: 87.1, status: 'building' });
+      const harbour = await store.create('build', WORKSHOP_ID, {
+        name: 'Harbour',
+        scaleRatio: 87.1,
+        status: 'building',
+      });
       await store.create('build', WORKSHOP_ID, { name: 'Canal lock', scaleRatio: 76.2, status: 'building' });
       const photo = picked(await pictureFile('cover.jpg'), '2025-03-01T09:30:00.000Z');
       await TestBed.inject(BuildPhotos).add(WORKSHOP_ID, { buildId: harbour }, [photo]);

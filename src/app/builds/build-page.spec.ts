@@ -63,8 +63,18 @@ describe('BuildPage', () => {
       title: 'Carved the foam',
       happenedAt: at(50),
     });
-    await store.create('step', WORKSHOP_ID, { buildId, kind: 'painting', title: 'Dark water base', happenedAt: at(30) });
-    await store.create('step', WORKSHOP_ID, { buildId, kind: 'detailing', title: 'Added the jetty', happenedAt: at(2) });
+    await store.create('step', WORKSHOP_ID, {
+      buildId,
+      kind: 'painting',
+      title: 'Dark water base',
+      happenedAt: at(30),
+    });
+    await store.create('step', WORKSHOP_ID, {
+      buildId,
+      kind: 'detailing',
+      title: 'Added the jetty',
+      happenedAt: at(2),
+    });
     const resin = await putMaterial(db, 'Clear casting resin');
     const euros = await putContainer(db, resin.id, 'EUR');
     pourStart = at(20);
