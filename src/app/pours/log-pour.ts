@@ -1,6 +1,5 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, input, signal, untracked } from '@angular/core';
-import { toSignal } from '@angular/core/rxjs-interop';
-import { type AbstractControl, FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
+import { ChangeDetectionStrategy, Component, computed, inject, input, signal } from '@angular/core';
+import { type AbstractControl, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatCheckboxModule } from '@angular/material/checkbox';
@@ -11,8 +10,6 @@ import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import { Router, RouterLink } from '@angular/router';
 import {
-  displayUnitsFor,
-  drawForPour,
   formatMass,
   formatNumber,
   formatVolume,
@@ -20,31 +17,18 @@ import {
   fromMl,
   fromMm,
   may,
-  planPour,
   TEMPERATURE_LABELS,
-  toCelsius,
-  toMl,
-  toMm,
-  type DisplayUnits,
   type MaterialKind,
-  type PourPlanRequestInput,
   type PourUse,
 } from '@benchtide/shared';
 import { format } from 'date-fns';
-import { map, startWith, timer } from 'rxjs';
-import { DevicePreferences } from '../core/device-preferences';
-import { parseDecimal } from '../core/decimal-input';
 import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';
-import { StockShortError } from '../sync/offline-store';
 import type { LocalPour } from '../sync/synced-records';
 import { FeatureShapeFields } from './feature-shape-fields';
-import { featureControls, fieldText, shapeFields, shapeFrom, text } from './pour-form';
+import { PourDraft } from './pour-draft';
+import { fieldText, shapeFields } from './pour-form';
 import { PourLog, type ContainerWithStock } from './pour-log';
 import { PourPlanSheet } from './pour-plan-sheet';
-
-/** A room in a house, when nothing better is known (common practice). */
-const USUAL_ROOM_C = 20;
-const LAST_BUILD_KEY = 'benchtide.last-pour-build';
 
 /** Which field a message of the shared maths is about. */
 const FIELD_OF_PATH: Readonly<Record<string, string>> = {
@@ -56,13 +40,8 @@ const FIELD_OF_PATH: Readonly<Record<string, string>> = {
   depthMm: 'depth',
   displacedMl: 'displaced',
   wastePercent: 'wastePercent',
-  roomTempC: 'roomTemp',
   startAtMs: 'startAt',
 };
-
-function number(value: string): number {
-  return parseDecimal(value) ?? Number.NaN;
-}
 
 /**
  * Logging a pour: one screen that grows from the build and the feature to the plan, the stock it takes
@@ -71,7 +50,7 @@ function number(value: string): number {
  */
 @Component({
   selector: 'bt-log-pour',
-  providers: [ROOMY_FORM_FIELDS],
+  providers: [ROOMY_FORM_FIELDS, PourDraft],
   imports: [
     ReactiveFormsModule,
     RouterLink,
@@ -92,129 +71,45 @@ function number(value: string): number {
 })
 export class LogPour {
   private readonly pourLog = inject(PourLog);
-  private readonly preferences = inject(DevicePreferences);
   private readonly router = inject(Router);
+  protected readonly draft = inject(PourDraft);
 
   /** `?build=` from a build's page. */
   readonly build = input<string>();
 
-  protected readonly form = new FormGroup({
-    buildId: text(),
-    note: text(),
-    ...featureControls(),
-    materialId: text(),
-    roomTemp: text(),
-    /** Empty: the pour starts when "Start pour" is pressed. */
-    startAt: text(),
-    containerIds: new FormControl<string[]>([], { nonNullable: true }),
-    recordShortfall: new FormControl(false, { nonNullable: true }),
-  });
-
-  protected readonly builds = this.pourLog.builds();
-  protected readonly materials = this.pourLog.materials();
-  protected readonly lastPour = this.pourLog.lastPour();
+  protected readonly form = this.draft.form;
+  protected readonly builds = this.draft.builds;
+  protected readonly materials = this.draft.materials;
+  protected readonly lastPour = this.draft.lastPour;
   protected readonly mayLog = computed(() => may(this.pourLog.workshop()?.role, 'write-builds'));
   protected readonly signedIn = computed(() => this.pourLog.workshop() !== null);
-
-  private readonly value = toSignal(
-    this.form.valueChanges.pipe(
-      startWith(null),
-      map(() => this.form.getRawValue()),
-    ),
-    { requireSync: true },
-  );
-  /** Minutes tick, so "start now" plans stay current while the modeller stirs. */
-  private readonly minute = toSignal(timer(0, 60_000).pipe(map(() => Date.now())), { initialValue: Date.now() });
-  private readonly materialId = computed(() => this.value().materialId || null);
-  protected readonly stock = this.pourLog.stockOf(this.materialId);
-  protected readonly material = computed(() => this.materials().find((m) => m.id === this.materialId()) ?? null);
-
-  protected readonly units = computed<DisplayUnits>(() => {
-    const { unitSystem, temperatureUnit } = this.preferences.values();
-    return { ...displayUnitsFor(unitSystem), temperature: temperatureUnit };
-  });
+  protected readonly stock = this.draft.stock;
+  protected readonly material = this.draft.material;
+  protected readonly units = this.draft.units;
   /** A material of another kind gets the fullest set of cautions, the two-part resin's. */
   protected readonly cautionKind = computed<MaterialKind>(() => {
     const kind = this.material()?.kind;
     return kind === undefined || kind === 'other' ? 'two-part-epoxy' : kind;
   });
   protected readonly temperatureLabel = computed(() => TEMPERATURE_LABELS[this.units().temperature]);
-
-  private readonly request = computed<PourPlanRequestInput | null>(() => {
-    const material = this.material();
-    if (material === null) return null;
-    const value = this.value();
-    const units = this.units();
-    return {
-      shape: shapeFrom(value, units),
-      depthMm: toMm(number(value.depth), units.length),
-      displacedMl: toMl(number(value.displaced || '0'), units.volume),
-      wastePercent: number(value.wastePercent || '0'),
-      material: material.dataSheet,
-      roomTempC: toCelsius(number(value.roomTemp), units.temperature),
-      startAtMs: this.startAtMs(),
-      scaleResolutionG: this.preferences.values().scaleResolutionG,
-    };
-  });
-  protected readonly result = computed(() => {
-    const request = this.request();
-    return request === null ? null : planPour(request);
-  });
+  protected readonly result = this.draft.result;
+  protected readonly draw = this.draft.draw;
+  protected readonly cost = this.draft.cost;
   protected readonly submitted = signal(false);
   /** The maths' messages, each shown once its field was typed in or "Start pour" was pressed. */
   protected readonly errors = computed(() => {
     const result = this.result();
     if (result === null || result.ok) return new Map<string, string>();
-    this.value(); // read for its changes: a field turns dirty as it is typed in, which no signal reports
-    const shown = result.errors.filter((error) => this.submitted() || this.fieldOf(error.path)?.dirty !== false);
+    this.draft.value(); // read for its changes: a field turns dirty as it is typed in, which no signal reports
+    const shown = result.errors.filter((error) => this.submitted() || this.isTyped(error.path));
     return new Map(shown.map((error) => [error.path, error.message]));
-  });
-  protected readonly draw = computed(() => {
-    const result = this.result();
-    if (result === null || !result.ok) return null;
-    const chosen = this.value().containerIds;
-    return drawForPour(result.plan, this.stock(), chosen.length > 0 ? chosen : undefined);
-  });
-  protected readonly cost = computed(() => {
-    const draw = this.draw();
-    const currency = this.stock()[0]?.currency;
-    if (draw === null || currency === undefined) return null;
-    const minor = draw.uses.reduce((sum, use) => sum + use.costMinor, 0);
-    return new Intl.NumberFormat(undefined, { style: 'currency', currency }).format(minor / 100);
   });
 
   protected readonly saving = signal(false);
   protected readonly problem = signal<string | null>(null);
 
   constructor() {
-    // The build comes from the link, or is the one last poured into on this device, or the latest.
-    effect(() => {
-      const builds = this.builds();
-      const wanted = this.build() ?? stored(LAST_BUILD_KEY);
-      untracked(() => {
-        if (this.form.controls.buildId.value !== '' || builds.length === 0) return;
-        const id = builds.find((b) => b.id === wanted)?.id ?? builds[0]!.id;
-        this.form.controls.buildId.setValue(id);
-      });
-    });
-    effect(() => {
-      const materials = this.materials();
-      const last = this.lastPour();
-      untracked(() => {
-        if (this.form.controls.materialId.value !== '' || materials.length === 0) return;
-        const id = materials.find((m) => m.id === last?.materialId)?.id ?? materials[0]!.id;
-        this.form.controls.materialId.setValue(id);
-      });
-    });
-    effect(() => {
-      const roomC = this.lastPour()?.request.roomTempC ?? USUAL_ROOM_C;
-      const unit = this.units().temperature;
-      untracked(() => {
-        if (this.form.controls.roomTemp.value === '') {
-          this.form.controls.roomTemp.setValue(fieldText(fromCelsius(roomC, unit)));
-        }
-      });
-    });
+    this.draft.followLink(this.build);
   }
 
   /** What the last pour was, in a line, for the repeat button. */
@@ -235,13 +130,13 @@ export class LogPour {
       depth: fieldText(fromMm(request.depthMm, units.length)),
       displaced: fieldText(fromMl(request.displacedMl, units.volume)),
       wastePercent: fieldText(request.wastePercent),
-      materialId: pour.materialId,
-      roomTemp: fieldText(fromCelsius(request.roomTempC, units.temperature)),
       containerIds: [],
       recordShortfall: false,
     });
+    this.draft.chooseMaterial(pour.materialId);
+    this.draft.typeRoom(fieldText(fromCelsius(request.roomTempC, units.temperature)));
     // From a build's page the build stays; from the bench, the repeat goes into the last pour's build.
-    if (this.build() === undefined) this.form.controls.buildId.setValue(pour.buildId);
+    if (this.build() === undefined) this.draft.chooseBuild(pour.buildId);
   }
 
   protected containerLabel(container: ContainerWithStock): string {
@@ -274,71 +169,27 @@ export class LogPour {
   protected async start(): Promise<void> {
     this.problem.set(null);
     this.submitted.set(true);
-    const value = this.form.getRawValue();
-    const request = this.request();
-    const result = this.result();
-    if (value.buildId === '') return this.problem.set('Choose the build this pour is for.');
-    if (request === null) return this.problem.set('Choose a material from the shelf.');
-    if (result === null || !result.ok)
-      return this.problem.set('Some values need another look: see the notes beside the fields.');
-    const draw = this.draw();
-    if (draw && draw.shortfall.length > 0 && !value.recordShortfall) {
-      return this.problem.set(
-        'The shelf does not hold enough for this pour. Add a container on the Shelf, or tick that the rest comes from a bottle not on the shelf.',
-      );
-    }
+    const toLog = this.draft.toLog();
+    if ('problem' in toLog) return this.problem.set(toLog.problem);
     this.saving.set(true);
     try {
-      await this.pourLog.log({
-        buildId: value.buildId,
-        materialId: value.materialId,
-        shape: request.shape,
-        depthMm: request.depthMm,
-        displacedMl: request.displacedMl ?? 0,
-        wastePercent: request.wastePercent ?? 0,
-        roomTempC: request.roomTempC,
-        startAt: new Date(this.startAtMs()).toISOString(),
-        scaleResolutionG: request.scaleResolutionG ?? 0.1,
-        ...(value.containerIds.length > 0 ? { containerIds: value.containerIds } : {}),
-        whenShort: value.recordShortfall ? 'record-shortfall' : 'refuse',
-        note: value.note,
-      });
-      store(LAST_BUILD_KEY, value.buildId);
+      await this.pourLog.log(toLog.pour);
+      this.draft.remember(toLog.pour.buildId);
       await this.router.navigateByUrl('/');
     } catch (error) {
       this.problem.set(
-        error instanceof StockShortError || error instanceof Error
-          ? error.message
-          : 'The pour could not be saved on this device. Nothing was changed.',
+        error instanceof Error ? error.message : 'The pour could not be saved on this device. Nothing was changed.',
       );
     } finally {
       this.saving.set(false);
     }
   }
 
-  private fieldOf(path: string): AbstractControl | undefined {
+  /** Whether the field a message of the shared maths is about was typed in. */
+  private isTyped(path: string): boolean {
+    if (path === 'roomTempC') return this.draft.roomTyped();
     const name = FIELD_OF_PATH[path];
-    return name === undefined ? undefined : (this.form.get(name) ?? undefined);
-  }
-
-  private startAtMs(): number {
-    const typed = this.value().startAt;
-    return typed === '' ? this.minute() : new Date(typed).getTime();
-  }
-}
-
-function stored(key: string): string | null {
-  try {
-    return localStorage.getItem(key);
-  } catch {
-    return null;
-  }
-}
-
-function store(key: string, value: string): void {
-  try {
-    localStorage.setItem(key, value);
-  } catch {
-    // Private browsing: the next pour just starts from the latest build.
+    const control: AbstractControl | null = name === undefined ? null : this.form.get(name);
+    return control?.dirty !== false;
   }
 }
