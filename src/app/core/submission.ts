@@ -13,9 +13,12 @@ export class Submission {
   private readonly form: FormGroup | null;
   private readonly sendingState = signal(false);
   private readonly problemState = signal<ApiProblem | null>(null);
+  private readonly attemptedState = signal(false);
 
   readonly sending = this.sendingState.asReadonly();
   readonly problem = this.problemState.asReadonly();
+  /** Whether saving was tried: a form shows its own checks' messages from then on. */
+  readonly attempted = this.attemptedState.asReadonly();
 
   constructor(form: FormGroup | null = null) {
     this.form = form;
@@ -58,6 +61,30 @@ export class Submission {
     }
   }
 
+  /**
+   * A write on this device: refused in `refused`'s words while the form's own check finds mistakes, then
+   * `write`, whose failure is said in `failed`'s words with nothing lost from the form. Says whether it saved.
+   */
+  async save(write: () => Promise<unknown>, words: { refused?: string | null; failed: string }): Promise<boolean> {
+    this.attemptedState.set(true);
+    this.problemState.set(null);
+    if (words.refused) {
+      this.problemState.set(plainProblem('invalid', words.refused));
+      return false;
+    }
+    if (this.sendingState()) return false;
+    this.sendingState.set(true);
+    try {
+      await write();
+      return true;
+    } catch (error) {
+      this.problemState.set(plainProblem('device-storage', error instanceof Error ? error.message : words.failed));
+      return false;
+    } finally {
+      this.sendingState.set(false);
+    }
+  }
+
   /** Forgets the last answer, when the screen moves on. */
   clear(): void {
     this.problemState.set(null);
@@ -80,6 +107,10 @@ export class Submission {
       this.problemState.set({ code: 'invalid', message: elsewhere.join(' '), fields, retryAfterMinutes: null });
     }
   }
+}
+
+function plainProblem(code: string, message: string): ApiProblem {
+  return { code, message, fields: {}, retryAfterMinutes: null };
 }
 
 /** The message a Submission put on a control, for its `mat-error`. */

@@ -1,3 +1,4 @@
+import { Submission } from '../core/submission';
 import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
@@ -157,9 +158,10 @@ export class MaterialForm {
     }
     return messages;
   });
-  protected readonly attempted = signal(false);
-  protected readonly saving = signal(false);
-  protected readonly problem = signal<string | null>(null);
+  private readonly submission = new Submission();
+  protected readonly attempted = this.submission.attempted;
+  protected readonly saving = this.submission.sending;
+  protected readonly problem = computed(() => this.submission.problem()?.message ?? null);
   /** The schema's messages show once "Save" was pressed, and follow every change after. */
   protected readonly shown = computed(() => (this.attempted() ? this.messages() : new Map<string, string>()));
   protected readonly sheetErrors = computed(() => dataSheetErrors(this.shown(), 'dataSheet.'));
@@ -176,23 +178,19 @@ export class MaterialForm {
   }
 
   protected async save(): Promise<void> {
-    this.attempted.set(true);
-    this.problem.set(null);
-    if (this.messages().size > 0) {
-      this.problem.set('Some values need another look: see the notes beside the fields. Nothing was saved.');
-      return;
-    }
-    if (this.saving()) return;
-    this.saving.set(true);
-    try {
-      const patch = this.patch();
-      if (this.original === null) await this.stock.addMaterial(this.fields());
-      else if (patch !== null && Object.keys(patch).length > 0) await this.stock.editMaterial(this.original.id, patch);
-      this.dialogRef.close(true);
-    } catch (error) {
-      this.problem.set(error instanceof Error ? error.message : 'The material could not be saved on this device.');
-    } finally {
-      this.saving.set(false);
-    }
+    const refused =
+      this.messages().size > 0
+        ? 'Some values need another look: see the notes beside the fields. Nothing was saved.'
+        : null;
+    const saved = await this.submission.save(
+      async () => {
+        const patch = this.patch();
+        if (this.original === null) await this.stock.addMaterial(this.fields());
+        else if (patch !== null && Object.keys(patch).length > 0)
+          await this.stock.editMaterial(this.original.id, patch);
+      },
+      { refused, failed: 'The material could not be saved on this device.' },
+    );
+    if (saved) this.dialogRef.close(true);
   }
 }

@@ -1,4 +1,5 @@
-import { ChangeDetectionStrategy, Component, computed, inject, signal } from '@angular/core';
+import { Submission } from '../core/submission';
+import { ChangeDetectionStrategy, Component, computed, inject } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButtonModule } from '@angular/material/button';
@@ -103,31 +104,25 @@ export class WasteForm {
       ? `That is more than the ${this.left} the shelf expects to be left; a stocktake puts the count right.`
       : `Leaves ${quantityText(after)} ${this.unit}`;
   });
-  protected readonly attempted = signal(false);
-  protected readonly saving = signal(false);
-  protected readonly problem = signal<string | null>(null);
+  private readonly submission = new Submission();
+  protected readonly attempted = this.submission.attempted;
+  protected readonly saving = this.submission.sending;
+  protected readonly problem = computed(() => this.submission.problem()?.message ?? null);
 
   protected message(path: string): string | undefined {
     return this.attempted() ? this.messages().get(path) : undefined;
   }
 
   protected async save(): Promise<void> {
-    this.attempted.set(true);
-    this.problem.set(null);
-    if (this.messages().size > 0) {
-      this.problem.set('The amount needs another look: see the note beside it. Nothing was saved.');
-      return;
-    }
-    if (this.saving()) return;
-    this.saving.set(true);
-    try {
-      const { quantity, note } = this.entry();
-      await this.stock.recordWaste(this.data.container.id, quantity, note);
-      this.dialogRef.close(true);
-    } catch (error) {
-      this.problem.set(error instanceof Error ? error.message : 'The waste could not be saved on this device.');
-    } finally {
-      this.saving.set(false);
-    }
+    const refused =
+      this.messages().size > 0 ? 'The amount needs another look: see the note beside it. Nothing was saved.' : null;
+    const saved = await this.submission.save(
+      async () => {
+        const { quantity, note } = this.entry();
+        await this.stock.recordWaste(this.data.container.id, quantity, note);
+      },
+      { refused, failed: 'The waste could not be saved on this device.' },
+    );
+    if (saved) this.dialogRef.close(true);
   }
 }
