@@ -12,7 +12,7 @@ import type { ServerContext } from '../context.js';
 import { AppError } from '../core/app-error.js';
 import { pushedMutations } from '../db/schema/index.js';
 import { AfterCommit, openWork, type UnitOfWork } from '../records/unit-of-work.js';
-import { authorize } from '../workshops/workshop-service.js';
+import { authorize, forbidden } from '../workshops/workshop-service.js';
 import { serviceOf } from './record-services.js';
 
 const idOnly = z.object({ mutationId: z.uuid() });
@@ -99,10 +99,7 @@ async function applyOne(
   const parsed = mutationSchema.safeParse(item);
   if (!parsed.success) return rejection(mutationId, refusedShape(item));
   if (!may(work.role, 'write-builds')) {
-    return rejection(
-      mutationId,
-      new AppError(403, 'forbidden', `As a ${work.role} of this workshop you may not do this.`),
-    );
+    return rejection(mutationId, forbidden(work.role));
   }
   const mutation = parsed.data;
   const service = serviceOf(kindOf(mutation));

@@ -6,7 +6,7 @@ import type { ServedKind } from '../records/served-kind.js';
 import { containerRecords, ledgerRecords, materialRecords } from '../shelf/shelf-service.js';
 
 /** The service of every kind of synced record in the registry (shared/record-kinds.ts), in its order. */
-const SERVICES: readonly ServedKind[] = [
+export const RECORD_SERVICES: readonly ServedKind[] = [
   buildRecords,
   stepRecords,
   materialRecords,
@@ -16,7 +16,7 @@ const SERVICES: readonly ServedKind[] = [
   photoRecords,
 ];
 
-const BY_KIND = new Map(SERVICES.map((service) => [service.kind, service]));
+const BY_KIND = new Map(RECORD_SERVICES.map((service) => [service.kind, service]));
 const unserved = SYNCED_ENTITIES.filter((kind) => !BY_KIND.has(kind));
 if (unserved.length > 0) throw new Error(`No service on the server for these kinds of record: ${unserved.join(', ')}.`);
 
@@ -24,5 +24,3 @@ if (unserved.length > 0) throw new Error(`No service on the server for these kin
 export function serviceOf(kind: SyncedEntity): ServedKind {
   return BY_KIND.get(kind)!;
 }
-
-export { SERVICES as RECORD_SERVICES };

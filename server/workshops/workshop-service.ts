@@ -37,6 +37,11 @@ export async function createWorkshop(db: Queryable, userId: string, name: string
 }
 
 /** The caller's role in a workshop if the policy lets them do the action; 404 to strangers. */
+/** The refusal of something a member's role does not allow. */
+export function forbidden(role: Role): AppError {
+  return new AppError(403, 'forbidden', `As a ${role} of this workshop you may not do this.`);
+}
+
 export async function authorize(
   db: Queryable,
   userId: string,
@@ -49,7 +54,7 @@ export async function authorize(
     .where(and(eq(memberships.workshopId, workshopId), eq(memberships.userId, userId)));
   if (!membership) throw new AppError(404, 'workshop_unknown', 'You are not a member of this workshop.');
   if (!may(membership.role, action)) {
-    throw new AppError(403, 'forbidden', `As a ${membership.role} of this workshop you may not do this.`);
+    throw forbidden(membership.role);
   }
   return membership.role;
 }
