@@ -1,5 +1,5 @@
 import { HttpErrorResponse } from '@angular/common/http';
-import { signal } from '@angular/core';
+import { computed, signal } from '@angular/core';
 import type { AbstractControl, FormGroup } from '@angular/forms';
 import type { ZodType } from 'zod';
 import { apiError, type ApiProblem } from './api-error';
@@ -17,6 +17,8 @@ export class Submission {
 
   readonly sending = this.sendingState.asReadonly();
   readonly problem = this.problemState.asReadonly();
+  /** The problem in plain words alone, for a form that shows no field list. */
+  readonly problemText = computed(() => this.problemState()?.message ?? null);
   /** Whether saving was tried: a form shows its own checks' messages from then on. */
   readonly attempted = this.attemptedState.asReadonly();
 

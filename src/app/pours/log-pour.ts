@@ -23,6 +23,7 @@ import {
 } from '@benchtide/shared';
 import { format } from 'date-fns';
 import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';
+import { Submission } from '../core/submission';
 import type { LocalPour } from '../sync/synced-records';
 import { FeatureShapeFields } from './feature-shape-fields';
 import { PourDraft } from './pour-draft';
@@ -105,8 +106,9 @@ export class LogPour {
     return new Map(shown.map((error) => [error.path, error.message]));
   });
 
-  protected readonly saving = signal(false);
-  protected readonly problem = signal<string | null>(null);
+  private readonly submission = new Submission();
+  protected readonly saving = this.submission.sending;
+  protected readonly problem = this.submission.problemText;
 
   constructor() {
     this.draft.followLink(this.build);
@@ -167,22 +169,20 @@ export class LogPour {
   }
 
   protected async start(): Promise<void> {
-    this.problem.set(null);
     this.submitted.set(true);
     const toLog = this.draft.toLog();
-    if ('problem' in toLog) return this.problem.set(toLog.problem);
-    this.saving.set(true);
-    try {
-      await this.pourLog.log(toLog.pour);
-      this.draft.remember(toLog.pour.buildId);
-      await this.router.navigateByUrl('/');
-    } catch (error) {
-      this.problem.set(
-        error instanceof Error ? error.message : 'The pour could not be saved on this device. Nothing was changed.',
-      );
-    } finally {
-      this.saving.set(false);
-    }
+    const saved = await this.submission.save(
+      async () => {
+        if (!('pour' in toLog)) return;
+        await this.pourLog.log(toLog.pour);
+        this.draft.remember(toLog.pour.buildId);
+      },
+      {
+        refused: 'problem' in toLog ? toLog.problem : null,
+        failed: 'The pour could not be saved on this device. Nothing was changed.',
+      },
+    );
+    if (saved) await this.router.navigateByUrl('/');
   }
 
   /** Whether the field a message of the shared maths is about was typed in. */

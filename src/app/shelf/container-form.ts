@@ -170,7 +170,7 @@ export class ContainerForm {
   private readonly submission = new Submission();
   protected readonly attempted = this.submission.attempted;
   protected readonly saving = this.submission.sending;
-  protected readonly problem = computed(() => this.submission.problem()?.message ?? null);
+  protected readonly problem = this.submission.problemText;
   /** The schema's messages show once "Save" was pressed, and follow every change after. */
   private readonly shown = computed(() => (this.attempted() ? this.messages() : new Map<string, string>()));
 

@@ -87,7 +87,7 @@ export class StocktakeForm {
   private readonly submission = new Submission();
   protected readonly attempted = this.submission.attempted;
   protected readonly saving = this.submission.sending;
-  protected readonly problem = computed(() => this.submission.problem()?.message ?? null);
+  protected readonly problem = this.submission.problemText;
 
   protected message(path: string): string | undefined {
     return this.attempted() ? this.messages().get(path) : undefined;

@@ -107,7 +107,7 @@ export class WasteForm {
   private readonly submission = new Submission();
   protected readonly attempted = this.submission.attempted;
   protected readonly saving = this.submission.sending;
-  protected readonly problem = computed(() => this.submission.problem()?.message ?? null);
+  protected readonly problem = this.submission.problemText;
 
   protected message(path: string): string | undefined {
     return this.attempted() ? this.messages().get(path) : undefined;
