@@ -120,6 +120,32 @@ export interface CureTimeline extends Omit<TemperatureCorrection, 'warnings'> {
   readonly warnings: readonly TradeWarning<CureWarningCode>[];
 }
 
+/** A data sheet's times at one room temperature. */
+export function correctedTimes(dataSheet: CureDataSheet, factor: number): CorrectedTimes {
+  const at = (minutes: number) => factor * minutes;
+  return {
+    potLifeMin: at(dataSheet.potLifeMin),
+    recoatMin: at(dataSheet.recoatMin),
+    ...(dataSheet.recoatMaxMin === undefined ? {} : { recoatMaxMin: at(dataSheet.recoatMaxMin) }),
+    demouldMin: at(dataSheet.demouldMin),
+    fullCureMin: at(dataSheet.fullCureMin),
+  };
+}
+
+/** `minutes` after `fromMs`, to the millisecond. */
+export const after = (fromMs: number, minutes: number) => fromMs + Math.round(minutes * MS_PER_MIN);
+
+/** One layer's moments, counted from when it goes on at the times of its room. */
+export function layerTimesAt(layer: number, pourAtMs: number, times: CorrectedTimes): LayerTimes {
+  return {
+    layer,
+    pourAtMs,
+    potLifeEndsAtMs: after(pourAtMs, times.potLifeMin),
+    recoatFromMs: after(pourAtMs, times.recoatMin),
+    ...(times.recoatMaxMin === undefined ? {} : { recoatUntilMs: after(pourAtMs, times.recoatMaxMin) }),
+  };
+}
+
 export function cureTimeline(input: CureTimelineInput): CureTimeline {
   const { dataSheet, layerCount, startAtMs } = input;
   if (!Number.isInteger(layerCount) || layerCount < 1) {
@@ -129,28 +155,13 @@ export function cureTimeline(input: CureTimelineInput): CureTimeline {
     throw new RangeError(`Start time must be epoch milliseconds, got ${startAtMs}`);
   }
   const correction = temperatureCorrection(dataSheet, input.roomTempC);
-  const at = (minutes: number) => correction.factor * minutes;
-  const times: CorrectedTimes = {
-    potLifeMin: at(dataSheet.potLifeMin),
-    recoatMin: at(dataSheet.recoatMin),
-    ...(dataSheet.recoatMaxMin === undefined ? {} : { recoatMaxMin: at(dataSheet.recoatMaxMin) }),
-    demouldMin: at(dataSheet.demouldMin),
-    fullCureMin: at(dataSheet.fullCureMin),
-  };
-  const after = (fromMs: number, minutes: number) => fromMs + Math.round(minutes * MS_PER_MIN);
-
+  const times = correctedTimes(dataSheet, correction.factor);
   const layers: LayerTimes[] = [];
   let pourAtMs = startAtMs;
   for (let layer = 1; layer <= layerCount; layer += 1) {
-    const recoatFromMs = after(pourAtMs, times.recoatMin);
-    layers.push({
-      layer,
-      pourAtMs,
-      potLifeEndsAtMs: after(pourAtMs, times.potLifeMin),
-      recoatFromMs,
-      ...(times.recoatMaxMin === undefined ? {} : { recoatUntilMs: after(pourAtMs, times.recoatMaxMin) }),
-    });
-    pourAtMs = recoatFromMs;
+    const next = layerTimesAt(layer, pourAtMs, times);
+    layers.push(next);
+    pourAtMs = next.recoatFromMs;
   }
   const lastPourAtMs = layers[layers.length - 1]?.pourAtMs ?? startAtMs;
 

@@ -9,6 +9,7 @@ export * from './ledger.js';
 export * from './material-presets.js';
 export * from './mix.js';
 export * from './pour-draw.js';
+export * from './pour-layers.js';
 export * from './pour-milestones.js';
 export * from './pour-plan.js';
 export * from './pour-reminders.js';

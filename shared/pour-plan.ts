@@ -6,7 +6,8 @@ import { cureTimeline, type CureTimeline } from './cure.js';
 import { splitIntoLayers, volumePerLayerMl, type LayerSplit } from './layers.js';
 import { mixAmounts, type MixAmounts } from './mix.js';
 import { pourVolume, type PourVolume } from './pour-volume.js';
-import { pourPlanRequestSchema, type PourPlanRequest } from './schemas.js';
+import { MAX_LAYERS, pourPlanRequestSchema, type PourPlanRequest } from './schemas.js';
+import { formatLength } from './format.js';
 import type { TradeWarning } from './warning.js';
 
 export interface PourLayers extends LayerSplit {
@@ -45,7 +46,15 @@ export function planPour(input: unknown): PourPlanResult {
   const { material } = request;
 
   const volume = pourVolume(request);
-  const split = splitIntoLayers(request.depthMm, material.maxLayerMm);
+  const fewest = splitIntoLayers(request.depthMm, material.maxLayerMm);
+  if (request.layerCount !== undefined && request.layerCount < fewest.count) {
+    return { ok: false, errors: [{ path: 'layerCount', message: tooFewLayers(fewest.count, request.depthMm, material.maxLayerMm) }] };
+  }
+  if (fewest.count > MAX_LAYERS) {
+    return { ok: false, errors: [{ path: 'depthMm', message: tooManyLayers(fewest.count) }] };
+  }
+  const count = request.layerCount ?? fewest.count;
+  const split: LayerSplit = { count, layerDepthMm: request.depthMm / count };
   // Rocks and banks are taken off evenly: the plan cannot know which layers they stand in.
   const layers: PourLayers = { ...split, volumePerLayerMl: volumePerLayerMl(volume.totalToMixMl, split.count) };
   const mix = mixAmounts({
@@ -76,4 +85,13 @@ export function planPour(input: unknown): PourPlanResult {
       warnings: [...volume.warnings, ...mix.warnings, ...cure.warnings],
     },
   };
+}
+
+/** Plain words for a layer count below what the maximum layer thickness allows. */
+export function tooFewLayers(fewest: number, depthMm: number, maxLayerMm: number): string {
+  return `At least ${fewest} layers: ${formatLength(depthMm)} at most ${formatLength(maxLayerMm)} a layer. Thicker layers can overheat, crack or yellow.`;
+}
+
+export function tooManyLayers(count: number): string {
+  return `This would take ${count} layers; a pour can have at most ${MAX_LAYERS}. Check the depth and the maximum layer on the data sheet.`;
 }

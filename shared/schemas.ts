@@ -56,6 +56,8 @@ export const materialDataSheetSchema = z
       referenceTempC: temperature('Data-sheet temperature'),
       minCureTempC: temperature('Minimum cure temperature'),
       maxLayerMm: moreThanZero('Maximum layer', 'mm'),
+      /** How far off the mix ratio the maker allows, when the data sheet says. */
+      ratioTolerancePercent: moreThanZero('Ratio tolerance', '%').max(50, { error: 'Ratio tolerance must be at most 50 %' }).optional(),
     },
     { error: 'Choose a material and fill in its data sheet' },
   )
@@ -85,6 +87,14 @@ export const materialDataSheetSchema = z
       });
     }
   });
+
+/** Common practice: past this a pour is no longer a handful of layers but a mistake in the depth or layer. */
+export const MAX_LAYERS = 50;
+
+export const layerCountSchema = finiteNumber('Number of layers')
+  .int({ error: 'Number of layers must be a whole number' })
+  .min(1, { error: 'A pour needs at least 1 layer' })
+  .max(MAX_LAYERS, { error: `A pour can have at most ${MAX_LAYERS} layers` });
 
 const pointSchema = z.object({ xMm: finiteNumber('Point position'), yMm: finiteNumber('Point position') });
 
@@ -134,6 +144,8 @@ export const pourPlanRequestSchema = z.object(
       .min(0, { error: 'Start time must not be before 1970' }),
     scaleResolutionG: moreThanZero('Scale resolution', 'g'),
     cupResolutionMl: moreThanZero('Cup resolution', 'mL').default(1),
+    /** More layers than the fewest the maximum layer allows: thin detail or tinted layers. */
+    layerCount: layerCountSchema.optional(),
   },
   { error: 'A pour plan needs a shape, depth, material and room temperature' },
 );

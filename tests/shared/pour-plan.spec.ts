@@ -152,3 +152,23 @@ describe('planPour', () => {
     });
   });
 });
+
+describe('planPour with a chosen number of layers', () => {
+  it('should split the depth evenly over more layers than the fewest', () => {
+    const result = planPour({ ...request, layerCount: 4 });
+    // 12 mm over 4 layers is 3 mm a layer (worked by hand).
+    expect(result.ok && result.plan.layers.count).toBe(4);
+    expect(result.ok && result.plan.layers.layerDepthMm).toBe(3);
+  });
+
+  it('should refuse fewer layers than the maximum layer thickness allows, on the layer count', () => {
+    // 12 mm at most 6 mm a layer needs 2 (common practice: thicker layers overheat).
+    expect(errorsFor({ ...request, layerCount: 1 }).map((error) => error.path)).toEqual(['layerCount']);
+  });
+
+  it('should refuse a depth that would take more than 50 layers', () => {
+    // 400 mm at 6 mm a layer is 67 layers.
+    expect(errorsFor({ ...request, depthMm: 400 }).map((error) => error.path)).toEqual(['depthMm']);
+    expect(errorsFor({ ...request, layerCount: 51 }).map((error) => error.path)).toEqual(['layerCount']);
+  });
+});
