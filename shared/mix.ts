@@ -137,6 +137,8 @@ function weighedRatioShiftPercent(exact: PartAmounts, weighed: PartAmounts): num
   if (weighed.partAG === 0) {
     return 100;
   }
+  // A part B too small to be a number in grams: the mix is right only if none is weighed either.
+  if (exact.partBG === 0 || exact.partAG === 0) return weighed.partBG === 0 ? 0 : 100;
   return Math.abs(weighed.partBG / weighed.partAG / (exact.partBG / exact.partAG) - 1) * 100;
 }
 

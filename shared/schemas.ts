@@ -3,7 +3,7 @@
  * Impossible values (negative depth, a zero ratio, density 0, NaN, Infinity) never reach the maths.
  */
 import * as z from 'zod';
-import { polygonAreaMm2 } from './pour-volume.js';
+import { allOnOneLine, crossingMessage, outlineCrossing } from './outline.js';
 
 const MIN_TEMP_C = -30;
 const MAX_TEMP_C = 60;
@@ -23,6 +23,32 @@ function moreThanZero(label: string, unit: string) {
   return finiteNumber(label).gt(0, { error: `${label} must be more than ${zeroIn(unit)}` });
 }
 
+/** Common practice: no diorama base or pour runs past 10 m; beyond it a value is a slip of the keyboard. */
+export const MAX_DIMENSION_MM = 10_000;
+const MAX_AREA_MM2 = MAX_DIMENSION_MM ** 2;
+/** A year: no data-sheet time runs longer. */
+const MAX_MINUTES = 525_600;
+
+function dimension(label: string) {
+  return moreThanZero(label, 'mm').max(MAX_DIMENSION_MM, {
+    error: `${label} must be at most 10 m (${MAX_DIMENSION_MM} mm)`,
+  });
+}
+
+/** From memory: casting materials run from about 0.7 g/mL (foamed) to under 3 g/mL (filled); 25 is past any metal but osmium. */
+function density(label: string) {
+  return finiteNumber(label)
+    .gt(0, { error: `${label} must be more than 0 g/mL`, abort: true })
+    .min(0.05, { error: `${label} must be at least 0.05 g/mL` })
+    .max(25, { error: `${label} must be at most 25 g/mL` });
+}
+
+function minutes(label: string) {
+  return moreThanZero(label, 'min').max(MAX_MINUTES, {
+    error: `${label} must be at most 365 days (${MAX_MINUTES} min)`,
+  });
+}
+
 function zeroOrMore(label: string, unit: string) {
   return finiteNumber(label).min(0, { error: `${label} must be ${zeroIn(unit)} or more` });
 }
@@ -35,8 +61,10 @@ function temperature(label: string) {
 export const mixRatioSchema = z.object(
   {
     basis: z.enum(['volume', 'weight'], { error: 'Choose whether the ratio is by weight or by volume' }),
-    partA: moreThanZero('Part A of the ratio', ''),
-    partB: zeroOrMore('Part B of the ratio', '').optional(),
+    partA: moreThanZero('Part A of the ratio', '').max(1000, { error: 'Part A of the ratio must be at most 1000' }),
+    partB: zeroOrMore('Part B of the ratio', '')
+      .max(1000, { error: 'Part B of the ratio must be at most 1000' })
+      .optional(),
   },
   { error: 'Enter the mix ratio from the data sheet' },
 );
@@ -46,18 +74,20 @@ export const materialDataSheetSchema = z
     {
       name: z.string().trim().max(200, { error: 'Name must be at most 200 characters' }).optional(),
       mixRatio: mixRatioSchema,
-      densityAGPerMl: moreThanZero('Part A density', 'g/mL'),
-      densityBGPerMl: moreThanZero('Part B density', 'g/mL').optional(),
-      potLifeMin: moreThanZero('Pot life', 'min'),
-      recoatMin: moreThanZero('Recoat time', 'min'),
-      recoatMaxMin: moreThanZero('End of the recoat window', 'min').optional(),
-      demouldMin: moreThanZero('Demould time', 'min'),
-      fullCureMin: moreThanZero('Full cure time', 'min'),
+      densityAGPerMl: density('Part A density'),
+      densityBGPerMl: density('Part B density').optional(),
+      potLifeMin: minutes('Pot life'),
+      recoatMin: minutes('Recoat time'),
+      recoatMaxMin: minutes('End of the recoat window').optional(),
+      demouldMin: minutes('Demould time'),
+      fullCureMin: minutes('Full cure time'),
       referenceTempC: temperature('Data-sheet temperature'),
       minCureTempC: temperature('Minimum cure temperature'),
-      maxLayerMm: moreThanZero('Maximum layer', 'mm'),
+      maxLayerMm: dimension('Maximum layer'),
       /** How far off the mix ratio the maker allows, when the data sheet says. */
-      ratioTolerancePercent: moreThanZero('Ratio tolerance', '%').max(50, { error: 'Ratio tolerance must be at most 50 %' }).optional(),
+      ratioTolerancePercent: moreThanZero('Ratio tolerance', '%')
+        .max(50, { error: 'Ratio tolerance must be at most 50 %' })
+        .optional(),
     },
     { error: 'Choose a material and fill in its data sheet' },
   )
@@ -96,21 +126,24 @@ export const layerCountSchema = finiteNumber('Number of layers')
   .min(1, { error: 'A pour needs at least 1 layer' })
   .max(MAX_LAYERS, { error: `A pour can have at most ${MAX_LAYERS} layers` });
 
-const pointSchema = z.object({ xMm: finiteNumber('Point position'), yMm: finiteNumber('Point position') });
+const coordinate = finiteNumber('Point position')
+  .min(-MAX_DIMENSION_MM, { error: 'Points must lie within 10 m of the first corner' })
+  .max(MAX_DIMENSION_MM, { error: 'Points must lie within 10 m of the first corner' });
+const pointSchema = z.object({ xMm: coordinate, yMm: coordinate });
 
 export const pourShapeSchema = z.discriminatedUnion(
   'kind',
   [
     z.object({
       kind: z.literal('rectangle'),
-      lengthMm: moreThanZero('Length', 'mm'),
-      widthMm: moreThanZero('Width', 'mm'),
+      lengthMm: dimension('Length'),
+      widthMm: dimension('Width'),
     }),
-    z.object({ kind: z.literal('circle'), diameterMm: moreThanZero('Diameter', 'mm') }),
+    z.object({ kind: z.literal('circle'), diameterMm: dimension('Diameter') }),
     z.object({
       kind: z.literal('ellipse'),
-      lengthMm: moreThanZero('Length', 'mm'),
-      widthMm: moreThanZero('Width', 'mm'),
+      lengthMm: dimension('Length'),
+      widthMm: dimension('Width'),
     }),
     z
       .object({
@@ -120,20 +153,38 @@ export const pourShapeSchema = z.discriminatedUnion(
           .min(3, { error: 'A traced outline needs at least 3 points' })
           .max(10_000, { error: 'A traced outline can have at most 10000 points' }),
       })
-      .refine((shape) => shape.points.length < 3 || polygonAreaMm2(shape.points) > 0, {
-        error: 'The traced outline has no area: its points lie on one line',
-        path: ['points'],
+      .superRefine((shape, ctx) => {
+        if (shape.points.length < 3) return;
+        if (allOnOneLine(shape.points)) {
+          ctx.addIssue({
+            code: 'custom',
+            path: ['points'],
+            message: 'The traced outline has no area: its points lie on one line',
+          });
+          return;
+        }
+        const crossing = outlineCrossing(shape.points);
+        if (crossing) ctx.addIssue({ code: 'custom', path: ['points'], message: crossingMessage(crossing) });
       }),
-    z.object({ kind: z.literal('area'), areaMm2: moreThanZero('Area', 'mm²') }),
+    z.object({
+      kind: z.literal('area'),
+      areaMm2: moreThanZero('Area', 'mm²').max(MAX_AREA_MM2, { error: 'Area must be at most 100 m² (10 m by 10 m)' }),
+    }),
   ],
   { error: 'Choose a shape: rectangle, circle, ellipse, traced outline or area' },
 );
 
+const LATEST_START_MS = Date.UTC(2200, 0, 1);
+
 export const pourPlanRequestSchema = z.object(
   {
     shape: pourShapeSchema,
-    depthMm: moreThanZero('Depth', 'mm'),
-    displacedMl: zeroOrMore('Displaced volume', 'mL').default(0),
+    depthMm: dimension('Depth'),
+    displacedMl: zeroOrMore('Displaced volume', 'mL')
+      .max((MAX_AREA_MM2 * MAX_DIMENSION_MM) / 1000, {
+        error: 'Displaced volume must be at most 1000000000 mL (a 10 m by 10 m base 10 m deep)',
+      })
+      .default(0),
     wastePercent: zeroOrMore('Waste allowance', '%')
       .max(100, { error: 'Waste allowance must be at most 100 %' })
       .default(0),
@@ -141,9 +192,15 @@ export const pourPlanRequestSchema = z.object(
     roomTempC: temperature('Room temperature'),
     startAtMs: finiteNumber('Start time')
       .int({ error: 'Start time must be a whole number of milliseconds' })
-      .min(0, { error: 'Start time must not be before 1970' }),
-    scaleResolutionG: moreThanZero('Scale resolution', 'g'),
-    cupResolutionMl: moreThanZero('Cup resolution', 'mL').default(1),
+      .min(0, { error: 'Start time must not be before 1970' })
+      .max(LATEST_START_MS, { error: 'Start time must be before the year 2200' }),
+    scaleResolutionG: finiteNumber('Scale resolution')
+      .min(0.001, { error: 'Scale resolution must be at least 0.001 g' })
+      .max(100, { error: 'Scale resolution must be at most 100 g' }),
+    cupResolutionMl: finiteNumber('Cup resolution')
+      .min(0.01, { error: 'Cup resolution must be at least 0.01 mL' })
+      .max(100, { error: 'Cup resolution must be at most 100 mL' })
+      .default(1),
     /** More layers than the fewest the maximum layer allows: thin detail or tinted layers. */
     layerCount: layerCountSchema.optional(),
   },
