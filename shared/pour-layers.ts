@@ -90,7 +90,10 @@ export function remainingLayers(
   const { request, volume, mix, layers } = plan;
   const pouredDepthMm = poured.reduce((sum, layer) => sum + layer.depthMm, 0);
   const depthLeftMm = Math.max(0, request.depthMm - pouredDepthMm);
-  if (layerCount === layers.count && Math.abs(depthLeftMm - count * layers.layerDepthMm) <= DEPTH_TOLERANCE_MM * count) {
+  if (
+    layerCount === layers.count &&
+    Math.abs(depthLeftMm - count * layers.layerDepthMm) <= DEPTH_TOLERANCE_MM * count
+  ) {
     // The plan as made at Start: its own rounded amounts, so an unchanged pour draws exactly what it planned.
     const total = subtractLayers(mix.total, mix.perLayer, poured.length);
     return { perLayer: { depthMm: layers.layerDepthMm, ...amountsOf(mix.perLayer) }, total, count };
@@ -106,7 +109,11 @@ export function remainingLayers(
     scaleResolutionG: request.scaleResolutionG,
     cupResolutionMl: request.cupResolutionMl,
   });
-  return { perLayer: { depthMm: depthLeftMm / count, ...amountsOf(remaining.perLayer) }, total: remaining.total, count };
+  return {
+    perLayer: { depthMm: depthLeftMm / count, ...amountsOf(remaining.perLayer) },
+    total: remaining.total,
+    count,
+  };
 }
 
 function amountsOf(parts: PartAmounts) {
@@ -130,10 +137,13 @@ export function followPour(input: FollowPourInput): FollowedPour {
   const { plan, layerCount, nowMs } = input;
   const poured = [...input.poured].sort((a, b) => a.number - b.number);
   if (!Number.isInteger(layerCount) || layerCount < Math.max(1, poured.length) || layerCount > MAX_LAYERS) {
-    throw new RangeError(`Layer count must be a whole number from ${Math.max(1, poured.length)} to ${MAX_LAYERS}, got ${layerCount}`);
+    throw new RangeError(
+      `Layer count must be a whole number from ${Math.max(1, poured.length)} to ${MAX_LAYERS}, got ${layerCount}`,
+    );
   }
   poured.forEach((layer, index) => {
-    if (layer.number !== index + 1) throw new RangeError(`Poured layers must be 1, 2, 3...; found layer ${layer.number} at ${index + 1}`);
+    if (layer.number !== index + 1)
+      throw new RangeError(`Poured layers must be 1, 2, 3...; found layer ${layer.number} at ${index + 1}`);
   });
   const dataSheet: CureDataSheet = plan.request.material;
   const timesAt = (roomTempC: number) => correctedTimes(dataSheet, temperatureCorrection(dataSheet, roomTempC).factor);
@@ -259,7 +269,11 @@ export function layerProblem(
     };
   }
   if (number !== followed.pouredCount + 1) {
-    return { code: 'out-of-order', field: 'number', message: `Layer ${followed.pouredCount + 1} comes before layer ${number}.` };
+    return {
+      code: 'out-of-order',
+      field: 'number',
+      message: `Layer ${followed.pouredCount + 1} comes before layer ${number}.`,
+    };
   }
   const below = followed.layers[number - 2];
   if (below && pouredAtMs < below.pourAtMs) {
@@ -270,7 +284,11 @@ export function layerProblem(
     };
   }
   if (pouredAtMs > nowMs + MAX_FUTURE_MS) {
-    return { code: 'in-future', field: 'pouredAt', message: 'That time is more than an hour from now. Record a layer when it is poured.' };
+    return {
+      code: 'in-future',
+      field: 'pouredAt',
+      message: 'That time is more than an hour from now. Record a layer when it is poured.',
+    };
   }
   return null;
 }
@@ -295,7 +313,8 @@ export function weighedRatioProblem(
   const { exactPerLayer, singlePart } = plan.mix;
   if (singlePart || exactPerLayer.partAG === 0 || exactPerLayer.partBG === 0) return null;
   if (!(weighed.partAG > 0) || !(weighed.partBG > 0)) return 'Record both parts, each more than 0 g.';
-  const shiftPercent = Math.abs(weighed.partBG / weighed.partAG / (exactPerLayer.partBG / exactPerLayer.partAG) - 1) * 100;
+  const shiftPercent =
+    Math.abs(weighed.partBG / weighed.partAG / (exactPerLayer.partBG / exactPerLayer.partAG) - 1) * 100;
   if (shiftPercent <= tolerancePercent) return null;
   const wantedBG = weighed.partAG * (exactPerLayer.partBG / exactPerLayer.partAG);
   return (
@@ -303,4 +322,34 @@ export function weighedRatioProblem(
     `(the data sheet allows ${tolerancePercent} %): part A wants ${formatMass(wantedBG)} of part B. ` +
     'Adjust before stirring if you can; an off-ratio mix can stay soft or tacky.'
   );
+}
+
+/** Layer 1 as recorded with its pour: poured at the pour's start, in the room it was planned for. */
+export function firstLayer(plan: Pick<PourPlan, 'layers' | 'mix'>, startAt: string, roomTempC: number) {
+  return {
+    number: 1,
+    pouredAt: startAt,
+    roomTempC,
+    depthMm: plan.layers.layerDepthMm,
+    partAG: plan.mix.perLayer.partAG,
+    partBG: plan.mix.perLayer.partBG,
+    weighedAG: null,
+    weighedBG: null,
+    note: '',
+  };
+}
+
+/** A layer record (device or server row) as the maths takes it. */
+export function pouredLayerOf(record: {
+  readonly number: number;
+  readonly pouredAt: string | Date;
+  readonly roomTempC: number;
+  readonly depthMm: number;
+  readonly partAG: number;
+  readonly partBG: number;
+  readonly weighedAG?: number | null;
+  readonly weighedBG?: number | null;
+}): PouredLayer {
+  const pouredAtMs = record.pouredAt instanceof Date ? record.pouredAt.getTime() : Date.parse(record.pouredAt);
+  return { ...record, pouredAtMs };
 }

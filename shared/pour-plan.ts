@@ -48,7 +48,10 @@ export function planPour(input: unknown): PourPlanResult {
   const volume = pourVolume(request);
   const fewest = splitIntoLayers(request.depthMm, material.maxLayerMm);
   if (request.layerCount !== undefined && request.layerCount < fewest.count) {
-    return { ok: false, errors: [{ path: 'layerCount', message: tooFewLayers(fewest.count, request.depthMm, material.maxLayerMm) }] };
+    return {
+      ok: false,
+      errors: [{ path: 'layerCount', message: tooFewLayers(fewest.count, request.depthMm, material.maxLayerMm) }],
+    };
   }
   if (fewest.count > MAX_LAYERS) {
     return { ok: false, errors: [{ path: 'depthMm', message: tooManyLayers(fewest.count) }] };

@@ -70,7 +70,11 @@ describe('followPour', () => {
   it('should move every later moment by six hours when layer 2 goes on six hours late (worked by hand)', () => {
     // Layer 2 at 21:00 instead of 15:00, same 25 °C: layer 3 from 03:00 on the 11th, its window
     // closing 12 h after layer 2 (09:00 on the 11th), demould 03:00 on the 12th, full cure 03:00 on the 18th.
-    const followed = followPour({ plan, layerCount: 3, poured: [layer(plan, 1, at(10, 9)), layer(plan, 2, at(10, 21))] });
+    const followed = followPour({
+      plan,
+      layerCount: 3,
+      poured: [layer(plan, 1, at(10, 9)), layer(plan, 2, at(10, 21))],
+    });
     const [first, second, third] = followed.layers;
     expect(first!.recoatFromMs).toBe(at(10, 15));
     expect(second!.pourAtMs).toBe(at(10, 21));
@@ -119,7 +123,11 @@ describe('followPour', () => {
   });
 
   it('should count what was really weighed in what the pour takes from the shelf', () => {
-    const first = { ...layer(plan, 1, at(10, 9)), weighedAG: plan.mix.perLayer.partAG + 0.4, weighedBG: plan.mix.perLayer.partBG };
+    const first = {
+      ...layer(plan, 1, at(10, 9)),
+      weighedAG: plan.mix.perLayer.partAG + 0.4,
+      weighedBG: plan.mix.perLayer.partBG,
+    };
     const followed = followPour({ plan, layerCount: 3, poured: [first] });
     expect(followed.needG.partA).toBeCloseTo(plan.mix.total.partAG + 0.4, 9);
     expect(followed.needG.partB).toBeCloseTo(plan.mix.total.partBG, 9);
