@@ -4,7 +4,7 @@
  * creates a record (UUID v7), so the same record can be written offline and synced later.
  */
 import * as z from 'zod';
-import { materialDataSheetSchema, pourShapeSchema } from './schemas.js';
+import { layerCountSchema, materialDataSheetSchema, pourShapeSchema } from './schemas.js';
 
 const id = (label: string) => z.uuid({ error: `${label} must be an id made by the app` });
 // A NUL character cannot be stored as text; refusing it here keeps it from failing a whole sync batch.
@@ -138,10 +138,56 @@ export const newPourSchema = z.object({
   /** When the shelf holds less than the pour needs: refuse, or record the rest as from a bottle not on the shelf. */
   whenShort: z.enum(['refuse', 'record-shortfall'], { error: 'Choose refuse or record-shortfall' }).default('refuse'),
   note: text('Note', 2000).default(''),
+  /** More layers than the fewest the maximum layer thickness allows: thin detail or tinted layers. */
+  layerCount: layerCountSchema.optional(),
 });
+
+/** A pour corrected after it was logged: its note, or the number of layers now planned (add, skip, re-split). */
+export const pourPatchSchema = z
+  .object({ note: text('Note', 2000), layerCount: layerCountSchema })
+  .partial()
+  .refine((patch) => patch.note !== undefined || patch.layerCount !== undefined, {
+    error: 'Change the note or the number of layers',
+  });
+
+const roomTemp = z
+  .number({ error: 'Room temperature must be a number' })
+  .min(-30, { error: 'Room temperature must be at least -30 °C' })
+  .max(60, { error: 'Room temperature must be at most 60 °C' });
+const weighed = (part: string) => stockAmount(positive(`Weighed part ${part}`, 'g'), `Weighed part ${part}`).nullable();
+
+const layerFields = {
+  pouredAt: instant('Poured at'),
+  roomTempC: roomTemp,
+  /** What was really weighed; absent or null when the plan's amounts were used. */
+  weighedAG: weighed('A'),
+  weighedBG: weighed('B'),
+  /** Tint, pigment, what was embedded. */
+  note: text('Note', 2000),
+};
+/** A layer recorded as poured: the layer after the last one on. Layer 1 comes with the pour. */
+export const newPourLayerSchema = z.object({
+  id: id('Layer'),
+  pourId: id('Pour'),
+  number: z
+    .int({ error: 'Layer must be a whole number' })
+    .min(2, { error: 'Layer 1 is recorded with the pour' })
+    .max(50, { error: 'A pour can have at most 50 layers' }),
+  ...layerFields,
+  weighedAG: layerFields.weighedAG.optional(),
+  weighedBG: layerFields.weighedBG.optional(),
+  note: layerFields.note.default(''),
+});
+export const pourLayerPatchSchema = z
+  .object(layerFields)
+  .partial()
+  .refine((patch) => Object.keys(patch).length > 0, { error: 'Change at least one thing about the layer' });
 
 export type NewBuild = z.input<typeof newBuildSchema>;
 export type NewStep = z.input<typeof newStepSchema>;
 export type NewMaterial = z.input<typeof newMaterialSchema>;
 export type NewContainer = z.input<typeof newContainerSchema>;
 export type NewPour = z.input<typeof newPourSchema>;
+export type NewPourLayer = z.input<typeof newPourLayerSchema>;
+export type PourLayerPatch = z.input<typeof pourLayerPatchSchema>;
+export type PourPatch = z.input<typeof pourPatchSchema>;

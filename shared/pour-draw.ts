@@ -52,14 +52,25 @@ export interface PartNeed {
 
 const MILLI = 1000;
 
-/** Grams of each part the pour mixes in all (the rounded amounts actually weighed), with their densities. */
-export function partsNeeded(plan: PourPlan): PartNeed[] {
+/** Grams of each part, as a pour followed layer by layer needs them (see pour-layers.ts). */
+export interface NeedG {
+  readonly partA: number;
+  readonly partB: number;
+}
+
+/**
+ * Grams of each part the pour mixes in all (the rounded amounts actually weighed), with their densities:
+ * the plan's, or `needG` once layers were weighed or re-planned.
+ */
+export function partsNeeded(plan: PourPlan, needG?: NeedG): PartNeed[] {
   const { mix, request } = plan;
   const { densityAGPerMl, densityBGPerMl } = request.material;
-  if (mix.singlePart) return [{ part: 'single', quantityG: mix.total.partAG, densityGPerMl: densityAGPerMl }];
+  const partA = needG?.partA ?? mix.total.partAG;
+  const partB = needG?.partB ?? mix.total.partBG;
+  if (mix.singlePart) return [{ part: 'single', quantityG: partA, densityGPerMl: densityAGPerMl }];
   return [
-    { part: 'A', quantityG: mix.total.partAG, densityGPerMl: densityAGPerMl },
-    { part: 'B', quantityG: mix.total.partBG, densityGPerMl: densityBGPerMl ?? densityAGPerMl },
+    { part: 'A', quantityG: partA, densityGPerMl: densityAGPerMl },
+    { part: 'B', quantityG: partB, densityGPerMl: densityBGPerMl ?? densityAGPerMl },
   ];
 }
 
@@ -72,10 +83,11 @@ export function drawForPour(
   plan: PourPlan,
   containers: readonly ShelfContainer[],
   chosenContainerIds?: readonly string[],
+  needG?: NeedG,
 ): PourDraw {
   const uses: PourUse[] = [];
   const shortfall: PourShortfall[] = [];
-  for (const { part, quantityG, densityGPerMl } of partsNeeded(plan)) {
+  for (const { part, quantityG, densityGPerMl } of partsNeeded(plan, needG)) {
     const candidates = containers.filter(
       (container) =>
         container.part === part && (chosenContainerIds === undefined || chosenContainerIds.includes(container.id)),
@@ -104,8 +116,8 @@ export function drawForPour(
 }
 
 /** Plain words for a pour the shelf cannot cover, naming each short part: what the shelf holds and what is needed. */
-export function stockShortMessage(plan: PourPlan, shortfall: readonly PourShortfall[]): string {
-  const sentences = partsNeeded(plan).flatMap(({ part, quantityG }) => {
+export function stockShortMessage(plan: PourPlan, shortfall: readonly PourShortfall[], needG?: NeedG): string {
+  const sentences = partsNeeded(plan, needG).flatMap(({ part, quantityG }) => {
     const short = shortfall.find((entry) => entry.part === part);
     if (short === undefined) return [];
     const heldG = (Math.round(quantityG * MILLI) - Math.round(short.quantityG * MILLI)) / MILLI;

@@ -78,7 +78,18 @@ export const RECORD_KINDS = {
     export: { name: 'pours', label: 'Pours' },
     changes: {
       create: { data: 'newPourSchema', words: 'Pour logged' },
+      patch: { data: 'pourPatchSchema', words: 'Pour corrected' },
       delete: { words: 'Pour deleted' },
+    },
+  },
+  /** Each layer as really poured; layer 1 is made with its pour (and shares its id), later ones as they go on. */
+  pourLayer: {
+    deviceTable: 'pourLayers',
+    export: { name: 'layers', label: 'Pour layers' },
+    changes: {
+      create: { data: 'newPourLayerSchema', words: 'Layer poured' },
+      patch: { data: 'pourLayerPatchSchema', words: 'Layer corrected' },
+      delete: { words: 'Layer taken back' },
     },
   },
   /** Made by an upload (PUT with the bytes), then changed and deleted like the rest. */

@@ -6,10 +6,20 @@
 import { TZDate } from '@date-fns/tz';
 import * as z from 'zod';
 
-export const REMINDER_KINDS = ['next-layer-due', 'demould', 'full-cure', 'shelf-digest'] as const;
+export const REMINDER_KINDS = [
+  'next-layer-due',
+  'recoat-window-closes',
+  'demould',
+  'full-cure',
+  'shelf-digest',
+] as const;
 export type ReminderKind = (typeof REMINDER_KINDS)[number];
 export const REMINDER_CHANNELS = ['push', 'email'] as const;
 export type ReminderChannel = (typeof REMINDER_CHANNELS)[number];
+
+/** Common practice: half an hour is time enough to get to the bench and mix the next layer. */
+export const DEFAULT_RECOAT_LEAD_MIN = 30;
+export const MAX_RECOAT_LEAD_MIN = 720;
 
 const wallTime = (label: string) =>
   z.string().regex(/^([01]\d|2[0-3]):[0-5]\d$/, { error: `${label} must be a time of day like 22:30` });
@@ -36,6 +46,14 @@ export const reminderPreferencesSchema = z.object({
   /** null: no quiet hours. */
   quietHours: quietHoursSchema.nullable(),
   timeZone: z.string().refine(isTimeZone, { error: 'Choose a time zone from the list' }),
+  /** Minutes before a recoat window closes that its reminder comes; absent when saving keeps the member's own. */
+  recoatLeadMin: z
+    .int({ error: 'The recoat reminder lead must be a whole number of minutes' })
+    .min(0, { error: 'The recoat reminder lead cannot be below 0 minutes' })
+    .max(MAX_RECOAT_LEAD_MIN, {
+      error: `The recoat reminder lead can be at most ${MAX_RECOAT_LEAD_MIN} minutes (12 hours)`,
+    })
+    .optional(),
 });
 export type ReminderPreferences = z.infer<typeof reminderPreferencesSchema>;
 
@@ -50,6 +68,7 @@ export function defaultReminderPreferences(timeZone: string): ReminderPreference
     channels: ['push'],
     quietHours: { from: '22:00', until: '07:00' },
     timeZone: isTimeZone(timeZone) ? timeZone : 'UTC',
+    recoatLeadMin: DEFAULT_RECOAT_LEAD_MIN,
   };
 }
 
@@ -81,6 +100,44 @@ export function afterQuietHours(dueAtMs: number, quietHours: QuietHours | null, 
     ).getTime();
   const today = endOn(0);
   return today > dueAtMs ? today : endOn(1);
+}
+
+/**
+ * When a member's reminder of a moment goes out: at the moment, or `recoatLeadMin` before a recoat
+ * window closes; never before `nowMs`; then past quiet hours.
+ */
+export function reminderSendAtMs(
+  dueAtMs: number,
+  kind: ReminderKind,
+  preferences: Pick<ReminderPreferences, 'quietHours' | 'timeZone' | 'recoatLeadMin'>,
+  nowMs: number,
+): number {
+  const leadMin = kind === 'recoat-window-closes' ? (preferences.recoatLeadMin ?? DEFAULT_RECOAT_LEAD_MIN) : 0;
+  return afterQuietHours(Math.max(dueAtMs - leadMin * 60_000, nowMs), preferences.quietHours, preferences.timeZone);
+}
+
+/**
+ * The closing times of a recoat window whose reminder quiet hours hold until after the window closed:
+ * a reminder due at close − lead inside quiet hours waits for their end, so every window closing from
+ * `from` + lead until `until` is missed. Null when there are no quiet hours or the lead spans them.
+ */
+export function recoatClosesMissed(
+  quietHours: QuietHours | null,
+  recoatLeadMin: number = DEFAULT_RECOAT_LEAD_MIN,
+): { readonly from: string; readonly until: string } | null {
+  if (!Number.isFinite(recoatLeadMin) || recoatLeadMin < 0) {
+    throw new RangeError(`The recoat reminder lead must be 0 minutes or more, not ${recoatLeadMin}`);
+  }
+  if (!quietHours) return null;
+  const day = 24 * 60;
+  const from = minutesOf(quietHours.from);
+  const until = minutesOf(quietHours.until);
+  const quietMin = (until - from + day) % day;
+  if (quietMin === 0 || recoatLeadMin >= quietMin) return null;
+  const firstMissed = (from + recoatLeadMin) % day;
+  const wall = (minutes: number) =>
+    `${String(Math.floor(minutes / 60)).padStart(2, '0')}:${String(minutes % 60).padStart(2, '0')}`;
+  return { from: wall(firstMissed), until: quietHours.until };
 }
 
 /** What a browser's PushManager.subscribe() gives, as JSON, plus a name for the device. */

@@ -40,6 +40,7 @@ import { may, type WorkshopAction } from '../../shared/workshop-policy.js';
 import { SESSION_COOKIE } from '../auth/lucia-session-store.js';
 import { EXPORT_TABLES } from '../export/export-service.js';
 import { PHOTO_BODY_NAMES, PHOTO_PATH_PARAMETERS, PHOTO_ROUTES } from './photo-operations.js';
+import { POUR_PATH_PARAMETERS, POUR_ROUTES } from './pour-operations.js';
 import { REMINDER_BODY_NAMES, REMINDER_ROUTES } from './reminder-operations.js';
 
 export type OpenApiDocument = ReturnType<OpenApiGeneratorV3['generateDocument']>;
@@ -149,6 +150,7 @@ const PATH_PARAMETERS: Readonly<Record<string, z.ZodType>> = {
   token: z.string().meta({ description: 'The token from the invitation link.' }),
   table: z.enum(Object.keys(EXPORT_TABLES) as [string, ...string[]]).meta({ description: 'Which table to download.' }),
   ...PHOTO_PATH_PARAMETERS,
+  ...POUR_PATH_PARAMETERS,
 };
 
 const w = '/api/workshops/{workshopId}';
@@ -689,6 +691,7 @@ const API_ROUTES: readonly ApiRoute[] = [
     success: { status: 204, description: 'Deleted; the stock it used counts as on the shelf again.' },
     refusals: { 404: noSuch('pour') },
   },
+  ...POUR_ROUTES,
   ...PHOTO_ROUTES,
   ...REMINDER_ROUTES,
   {

@@ -1,6 +1,6 @@
-import { and, asc, eq, isNull, lte } from 'drizzle-orm';
+import { and, asc, eq, isNull, lte, or } from 'drizzle-orm';
 import { pourReminderTag } from '../../shared/pour-reminders.js';
-import { afterQuietHours } from '../../shared/reminder-preferences.js';
+import { MAX_RECOAT_LEAD_MIN, reminderSendAtMs, type ReminderKind } from '../../shared/reminder-preferences.js';
 import type { ServerContext } from '../context.js';
 import { pours } from '../db/schema/pours.js';
 import { pushSubscriptions, reminderDeliveries, reminders } from '../db/schema/reminders.js';
@@ -23,14 +23,30 @@ export interface Sending {
   vapidSubject: string;
 }
 
-/** Makes out each recipient's deliveries for the reminders due by `now`, each held past quiet hours. */
+/**
+ * Makes out each recipient's deliveries for the reminders due by `now`, each held past quiet hours. A
+ * recoat window's reminder is made out as soon as the longest lead a member may choose reaches it, each
+ * member's delivery waiting until their own lead before the close.
+ */
 export async function fanOutDueReminders(ctx: ServerContext, now: Date): Promise<number> {
   return ctx.db.transaction(async (tx) => {
     const due = await tx
       .select({ reminder: reminders, buildId: pours.buildId, pourDeletedAt: pours.deletedAt })
       .from(reminders)
       .innerJoin(pours, eq(pours.id, reminders.pourId))
-      .where(and(lte(reminders.dueAt, now), isNull(reminders.fannedOutAt), isNull(reminders.cancelledAt)))
+      .where(
+        and(
+          or(
+            lte(reminders.dueAt, now),
+            and(
+              eq(reminders.kind, 'recoat-window-closes'),
+              lte(reminders.dueAt, new Date(now.getTime() + MAX_RECOAT_LEAD_MIN * 60_000)),
+            ),
+          ),
+          isNull(reminders.fannedOutAt),
+          isNull(reminders.cancelledAt),
+        ),
+      )
       .orderBy(asc(reminders.dueAt))
       .limit(FAN_OUT_BATCH)
       .for('update', { of: reminders, skipLocked: true });
@@ -48,7 +64,7 @@ export async function fanOutDueReminders(ctx: ServerContext, now: Date): Promise
         const people = recipients.get(audience)!;
         // The same subject the open app uses for its own notification, so one replaces the other.
         const subject = pourReminderTag(reminder.pourId, reminder.key);
-        await addDeliveries(tx, subject, people, message, reminder.dueAt, now, reminder.id);
+        await addDeliveries(tx, subject, people, message, reminder.dueAt, now, reminder.id, reminder.kind);
       }
       await tx
         .update(reminders)
@@ -68,10 +84,10 @@ export async function addDeliveries(
   dueAt: Date,
   now: Date,
   reminderId: string | null = null,
+  kind: ReminderKind = 'shelf-digest',
 ): Promise<void> {
   const rows = people.flatMap((person) => {
-    const from = Math.max(dueAt.getTime(), now.getTime());
-    const sendAfter = new Date(afterQuietHours(from, person.preferences.quietHours, person.preferences.timeZone));
+    const sendAfter = new Date(reminderSendAtMs(dueAt.getTime(), kind, person.preferences, now.getTime()));
     return person.channels.map((channel) => ({
       subject,
       userId: person.userId,

@@ -62,5 +62,6 @@ export function preferencesFrom(row: typeof reminderPreferences.$inferSelect | n
     channels: row.channels,
     quietHours: row.quietFrom && row.quietUntil ? { from: row.quietFrom, until: row.quietUntil } : null,
     timeZone: row.timeZone,
+    recoatLeadMin: row.recoatLeadMin,
   };
 }

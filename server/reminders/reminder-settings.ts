@@ -30,6 +30,7 @@ export async function savePreferences(
     quietFrom: input.quietHours?.from ?? null,
     quietUntil: input.quietHours?.until ?? null,
     timeZone: input.timeZone,
+    ...(input.recoatLeadMin === undefined ? {} : { recoatLeadMin: input.recoatLeadMin }),
     updatedAt: ctx.clock.now(),
   };
   await ctx.db

@@ -1,6 +1,7 @@
 import { SYNCED_ENTITIES, type SyncedEntity } from '../../shared/record-kinds.js';
 import { buildRecords, stepRecords } from '../builds/build-service.js';
 import { photoRecords } from '../photos/photo-service.js';
+import { pourLayerRecords } from '../pours/pour-layer-service.js';
 import { pourRecords } from '../pours/pour-service.js';
 import type { ServedKind } from '../records/served-kind.js';
 import { containerRecords, ledgerRecords, materialRecords } from '../shelf/shelf-service.js';
@@ -13,6 +14,7 @@ export const RECORD_SERVICES: readonly ServedKind[] = [
   containerRecords,
   ledgerRecords,
   pourRecords,
+  pourLayerRecords,
   photoRecords,
 ];
 

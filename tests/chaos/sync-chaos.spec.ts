@@ -5,6 +5,7 @@ import {
   buildSteps as steps,
   containerStock,
   ledgerEntries,
+  pourLayers,
   pours,
   pushedMutations,
 } from '../../server/db/schema/index.js';
@@ -14,7 +15,7 @@ import { addBuild, addContainer, addMaterial, api, pourBody } from '../support/s
 import { testServer, type TestServer } from '../support/test-app.js';
 import { DroppingProxy } from './support/dropping-proxy.js';
 import { seededRandom } from './support/seeded-random.js';
-import { SimulatedDevice, type ExpectedRecords } from './support/simulated-device.js';
+import { LAYER_2_WEIGHED_G, SimulatedDevice, type ExpectedRecords } from './support/simulated-device.js';
 
 const SEED = Number(process.env['BENCHTIDE_CHAOS_SEED'] ?? 20261202);
 const DEVICES = 3;
@@ -52,6 +53,8 @@ describe(`sync under faults (seed ${SEED})`, () => {
   let workshopId: string;
   let containerIds: string[];
   let referencePourDraw: Map<string, number>;
+  /** A pour whose layer 2 was recorded draws layer 1 as planned and layer 2 as weighed. */
+  let layeredPourDraw: Map<string, number>;
 
   beforeAll(async () => {
     server = await testServer();
@@ -67,8 +70,13 @@ describe(`sync under faults (seed ${SEED})`, () => {
     ];
     // Every pour in the run has this one's shape and material, so each draws exactly what it drew.
     const referenceBuild = await addBuild(client, { name: 'Reference harbour' });
-    const reference = pourBody(referenceBuild, materialId);
+    const reference = pourBody(referenceBuild, materialId, { layerCount: 2 });
     await client.post('/pours', reference).expect(201);
+    const [firstLayer] = await server.ctx.db.select().from(pourLayers).where(eq(pourLayers.pourId, reference.id));
+    layeredPourDraw = new Map([
+      [containerIds[0]!, thousandths(firstLayer!.partAG + LAYER_2_WEIGHED_G)],
+      [containerIds[1]!, thousandths(firstLayer!.partBG + LAYER_2_WEIGHED_G)],
+    ]);
     const drawn = await server.ctx.db
       .select()
       .from(ledgerEntries)
@@ -210,9 +218,24 @@ describe(`sync under faults (seed ${SEED})`, () => {
         .select()
         .from(pours)
         .where(and(eq(pours.workshopId, workshopId), inArray(pours.buildId, [...expectedBuilds.keys()])));
-      expect(new Map(serverPours.map((p) => [p.id, { buildId: p.buildId, deleted: p.deletedAt !== null }]))).toEqual(
-        expectedPours,
-      );
+      // Layer 2 is held, once, for each pour a device recorded it on, and goes with a deleted pour.
+      const secondLayers = await db
+        .select()
+        .from(pourLayers)
+        .where(and(eq(pourLayers.workshopId, workshopId), eq(pourLayers.number, 2)));
+      const layered = new Set(secondLayers.map((layer) => layer.pourId));
+      expect(secondLayers.length).toBe(layered.size);
+      expect(
+        new Map(
+          serverPours.map((p) => [
+            p.id,
+            { buildId: p.buildId, deleted: p.deletedAt !== null, layered: layered.has(p.id) },
+          ]),
+        ),
+      ).toEqual(expectedPours);
+      for (const layer of secondLayers) {
+        expect(layer.deletedAt !== null).toBe(expectedPours.get(layer.pourId)!.deleted);
+      }
 
       const expectedWastes = union(devices, 'wastes');
       const serverWastes = await db
@@ -224,13 +247,20 @@ describe(`sync under faults (seed ${SEED})`, () => {
       ).toEqual(expectedWastes);
 
       // Stock sums exact: what each container had, less every live pour's draw and every waste, to the milligram.
-      const livePours = 1 + [...expectedPours.values()].filter((pour) => !pour.deleted).length;
+      const live = [...expectedPours.values()].filter((pour) => !pour.deleted);
+      const livePours = 1 + live.filter((pour) => !pour.layered).length;
+      const liveLayered = live.filter((pour) => pour.layered).length;
+      expect(liveLayered).withContext('some live pours have layer 2').toBeGreaterThan(0);
       const stock = await db.select().from(containerStock).where(inArray(containerStock.containerId, containerIds));
       for (const containerId of containerIds) {
         const wasted = [...expectedWastes.values()]
           .filter((waste) => waste.containerId === containerId)
           .reduce((sum, waste) => sum + waste.thousandths, 0);
-        const expected = thousandths(CONTAINER_SIZE_G) - livePours * referencePourDraw.get(containerId)! - wasted;
+        const expected =
+          thousandths(CONTAINER_SIZE_G) -
+          livePours * referencePourDraw.get(containerId)! -
+          liveLayered * layeredPourDraw.get(containerId)! -
+          wasted;
         const held = stock.find((row) => row.containerId === containerId);
         expect(thousandths(Number(held?.remaining)))
           .withContext(`container ${containerId}`)

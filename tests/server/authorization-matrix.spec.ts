@@ -33,6 +33,7 @@ interface Fixture {
   materialId: string;
   containerId: string;
   pourId: string;
+  layerId: string;
   photoId: string;
   /** An invitation sent to the caller (or to nobody in particular for an anonymous caller). */
   invitationTokenForCaller: string;
@@ -347,6 +348,34 @@ const MATRIX: readonly Row[] = [
     route: 'GET /api/workshops/:workshopId/pours/:pourId',
     path: (f) => `${w(f)}/pours/${f.pourId}`,
     expected: membersOnly(200),
+  },
+  {
+    route: 'PATCH /api/workshops/:workshopId/pours/:pourId',
+    path: (f) => `${w(f)}/pours/${f.pourId}`,
+    body: () => ({ note: 'Tail race' }),
+    expected: writers(200),
+  },
+  {
+    route: 'GET /api/workshops/:workshopId/pours/:pourId/layers',
+    path: (f) => `${w(f)}/pours/${f.pourId}/layers`,
+    expected: membersOnly(200),
+  },
+  {
+    route: 'POST /api/workshops/:workshopId/layers',
+    path: (f) => `${w(f)}/layers`,
+    body: (f) => ({ id: v7(), pourId: f.pourId, number: 3, pouredAt: '2026-11-21T06:00:00Z', roomTempC: 20 }),
+    expected: writers(201),
+  },
+  {
+    route: 'PATCH /api/workshops/:workshopId/layers/:layerId',
+    path: (f) => `${w(f)}/layers/${f.layerId}`,
+    body: () => ({ note: 'Tinted green' }),
+    expected: writers(200),
+  },
+  {
+    route: 'DELETE /api/workshops/:workshopId/layers/:layerId',
+    path: (f) => `${w(f)}/layers/${f.layerId}`,
+    expected: writers(204),
   },
   {
     route: 'DELETE /api/workshops/:workshopId/pours/:pourId',

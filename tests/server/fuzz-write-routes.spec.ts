@@ -117,6 +117,18 @@ function validBody(
       whenShort: 'refuse',
       note: '',
     },
+    PourPatch: { note: 'Tail race', layerCount: 4 },
+    NewPourLayer: {
+      id: fresh,
+      pourId: records.pourId,
+      number: 3,
+      pouredAt: '2026-11-21T06:00:00Z',
+      roomTempC: 18,
+      weighedAG: 10,
+      weighedBG: 10,
+      note: 'Tinted green',
+    },
+    PourLayerPatch: { pouredAt: '2026-11-21T01:00:00Z', roomTempC: 19, weighedAG: null, weighedBG: null, note: 'n' },
     PushRequest: {
       workshopId,
       mutations: [{ type: 'build.patch', mutationId: fresh, recordId: records.buildId, data: { name: 'Quay' } }],
@@ -148,7 +160,16 @@ function concretePath(path: string, { owner, workshopId, records }: Seeded): str
 async function fingerprint(server: TestServer, workshopId: string): Promise<string> {
   const count = (table: string) =>
     sql.raw(`(SELECT count(*) FROM ${table} WHERE workshop_id = '${workshopId}') AS ${table}`);
-  const tables = ['builds', 'build_steps', 'materials', 'containers', 'ledger_entries', 'pours', 'photos'];
+  const tables = [
+    'builds',
+    'build_steps',
+    'materials',
+    'containers',
+    'ledger_entries',
+    'pours',
+    'pour_layers',
+    'photos',
+  ];
   const result = await server.ctx.db.execute(
     sql`SELECT change_counter, ${sql.join(tables.map(count), sql`, `)} FROM workshops WHERE id = ${workshopId}`,
   );

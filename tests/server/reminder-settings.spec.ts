@@ -14,10 +14,11 @@ describe('reminder settings routes', () => {
     const account = await makeAccount(server.ctx, 'Lorcan');
     const first = await request(server.app).get('/api/account/reminders').set('Cookie', account.cookie).expect(200);
     expect(first.body.preferences).toEqual({
-      kinds: ['next-layer-due', 'demould', 'full-cure', 'shelf-digest'],
+      kinds: ['next-layer-due', 'recoat-window-closes', 'demould', 'full-cure', 'shelf-digest'],
       channels: ['push'],
       quietHours: { from: '22:00', until: '07:00' },
       timeZone: 'UTC',
+      recoatLeadMin: 30,
     });
     expect(first.body.saved).toBeFalse();
     const chosen = {
@@ -28,8 +29,23 @@ describe('reminder settings routes', () => {
     };
     await request(server.app).put('/api/account/reminders').set('Cookie', account.cookie).send(chosen).expect(200);
     const after = await request(server.app).get('/api/account/reminders').set('Cookie', account.cookie).expect(200);
-    expect(after.body.preferences).toEqual(chosen);
+    // No lead chosen: the default stays.
+    expect(after.body.preferences).toEqual({ ...chosen, recoatLeadMin: 30 });
     expect(after.body.saved).toBeTrue();
+  });
+
+  it('should keep a chosen recoat lead when later choices leave it out, and refuse one past 12 hours', async () => {
+    const account = await makeAccount(server.ctx, 'Oisin');
+    const put = (body: object) =>
+      request(server.app).put('/api/account/reminders').set('Cookie', account.cookie).send(body);
+    const choice = { kinds: ['recoat-window-closes'], channels: ['email'], quietHours: null, timeZone: 'UTC' };
+    await put({ ...choice, recoatLeadMin: 90 }).expect(200);
+    await put(choice).expect(200);
+    const refused = await put({ ...choice, recoatLeadMin: 721 }).expect(400);
+    expect(JSON.stringify(refused.body)).toContain('at most 720 minutes');
+    await put({ ...choice, recoatLeadMin: 12.5 }).expect(400);
+    const kept = await request(server.app).get('/api/account/reminders').set('Cookie', account.cookie).expect(200);
+    expect(kept.body.preferences.recoatLeadMin).toBe(90);
   });
 
   it('should refuse a bad time and an unknown zone with field messages, keeping what was saved', async () => {

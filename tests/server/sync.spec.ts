@@ -186,13 +186,19 @@ describe('sync', () => {
       if (!answer.more) break;
     }
     const { changes } = await pullAll(owner);
-    const pourChange = changes.find((change) => change.entity === 'pour')!.changeNumber;
-    expect(
+    const entitiesOf = (changeNumber: number) =>
       changes
-        .filter((change) => change.changeNumber === pourChange)
+        .filter((change) => change.changeNumber === changeNumber)
         .map((c) => c.entity)
-        .sort(),
-    ).toEqual(['ledgerEntry', 'ledgerEntry', 'pour']);
+        .sort();
+    // The pour was logged with its layer 1 and its stock uses in one change; recording layer 2 (weighing
+    // nothing, so the same uses) stamped the pour again with it. Each change comes whole.
+    const usesChange = changes.find(
+      (change) => change.entity === 'ledgerEntry' && change.record['pourId'] != null,
+    )!.changeNumber;
+    expect(entitiesOf(usesChange)).toEqual(['ledgerEntry', 'ledgerEntry', 'pourLayer']);
+    const pourChange = changes.find((change) => change.entity === 'pour')!.changeNumber;
+    expect(entitiesOf(pourChange)).toEqual(['pour', 'pourLayer']);
   });
 
   it('should say when to start over: a cursor from the future, or a workshop that is not yours', async () => {

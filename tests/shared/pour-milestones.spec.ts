@@ -1,5 +1,9 @@
 import {
   cureTimeline,
+  followedMilestones,
+  followPour,
+  needsSanding,
+  planPour,
   nextMilestone,
   pourMilestones,
   progressTowards,
@@ -80,5 +84,70 @@ describe('pour milestones', () => {
       expect(progressTowards(three, second, START, START)).toBe(0);
       expect(progressTowards(three, second, START, START + 999 * HOUR)).toBe(1);
     });
+  });
+});
+
+describe('followedMilestones', () => {
+  // Invented data sheet, times at 25 °C: recoat from 6 h until 12 h, demould 24 h, full cure 7 days.
+  const plan = (() => {
+    const result = planPour({
+      shape: { kind: 'rectangle', lengthMm: 100, widthMm: 100 },
+      depthMm: 12,
+      material: {
+        mixRatio: { basis: 'weight', partA: 2, partB: 1 },
+        densityAGPerMl: 1.1,
+        densityBGPerMl: 1.1,
+        potLifeMin: 40,
+        recoatMin: 360,
+        recoatMaxMin: 720,
+        demouldMin: 1440,
+        fullCureMin: 10_080,
+        referenceTempC: 25,
+        minCureTempC: 15,
+        maxLayerMm: 6,
+      },
+      roomTempC: 25,
+      startAtMs: START,
+      scaleResolutionG: 0.1,
+    });
+    if (!result.ok) throw new Error(JSON.stringify(result.errors));
+    return result.plan;
+  })();
+  const layer = (number: number, pouredAtMs: number) => ({
+    number,
+    pouredAtMs,
+    roomTempC: 25,
+    depthMm: 6,
+    partAG: plan.mix.perLayer.partAG,
+    partBG: plan.mix.perLayer.partBG,
+  });
+
+  it('should mark what counts from a layer not yet on as projected, and nothing for a layer already on', () => {
+    const one = followedMilestones(followPour({ plan, layerCount: 2, poured: [layer(1, START)] }));
+    expect(one.map((m) => [m.kind, m.projected ?? false])).toEqual([
+      ['layer-poured', false],
+      ['pot-life-ends', false],
+      ['next-layer-due', false],
+      // Layer 2 projected at 6 h: its working time ends at 6 h 40, before the window closes at 12 h.
+      ['pot-life-ends', true],
+      ['recoat-window-closes', false],
+      ['demould', true],
+      ['full-cure', true],
+    ]);
+    const both = followedMilestones(
+      followPour({ plan, layerCount: 2, poured: [layer(1, START), layer(2, START + 9 * HOUR)] }),
+    );
+    expect(both.some((m) => m.kind === 'next-layer-due')).toBeFalse();
+    // Layer 2 three hours after its earliest time (worked by hand: planned at 6 h, poured at 9 h).
+    expect(both.find((m) => m.kind === 'layer-poured' && m.layer === 2)?.plannedAtMs).toBe(START + 6 * HOUR);
+    expect(both.find((m) => m.kind === 'demould')).toEqual(
+      jasmine.objectContaining({ atMs: START + 33 * HOUR, plannedAtMs: START + 30 * HOUR }),
+    );
+  });
+
+  it('should ask for sanding only once the recoat window has closed (common practice)', () => {
+    const followed = followPour({ plan, layerCount: 2, poured: [layer(1, START)] });
+    expect(needsSanding(followed, START + 12 * HOUR)).toBeFalse();
+    expect(needsSanding(followed, START + 12 * HOUR + 1)).toBeTrue();
   });
 });

@@ -1,4 +1,5 @@
 import {
+  recoatClosesMissed,
   afterQuietHours,
   defaultReminderPreferences,
   reminderPreferencesSchema,
@@ -70,5 +71,28 @@ describe('reminder preferences', () => {
     expect(messages).toContain('Quiet until must be a time of day like 22:30');
     expect(messages).toContain('Each channel once');
     expect(messages).toContain('Choose a time zone from the list');
+  });
+});
+
+// Worked by hand: a reminder goes out `lead` before the window closes; inside quiet hours it waits for their end.
+describe('recoat windows quiet hours would hold past their close', () => {
+  it('should name the closing times from quiet start plus the lead until quiet end', () => {
+    // Quiet 22:00–07:00, lead 30 min: a window closing at 22:29 is reminded at 21:59, before quiet; one
+    // closing at 22:30 would be reminded at 22:00, held to 07:00.
+    expect(recoatClosesMissed({ from: '22:00', until: '07:00' }, 30)).toEqual({ from: '22:30', until: '07:00' });
+  });
+
+  it('should wrap past midnight', () => {
+    expect(recoatClosesMissed({ from: '23:45', until: '01:00' }, 30)).toEqual({ from: '00:15', until: '01:00' });
+  });
+
+  it('should find none when the lead spans the quiet hours, or there are none', () => {
+    expect(recoatClosesMissed({ from: '22:00', until: '07:00' }, 9 * 60)).toBeNull();
+    expect(recoatClosesMissed(null, 30)).toBeNull();
+  });
+
+  it('should refuse a negative or missing lead', () => {
+    expect(() => recoatClosesMissed({ from: '22:00', until: '07:00' }, -1)).toThrowError(RangeError);
+    expect(() => recoatClosesMissed({ from: '22:00', until: '07:00' }, Number.NaN)).toThrowError(RangeError);
   });
 });

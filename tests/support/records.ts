@@ -3,16 +3,20 @@ import { v7 } from 'uuid';
 import { createBuild, createStep } from '../../server/builds/build-service.js';
 import type { ServerContext } from '../../server/context.js';
 import { uploadPhoto } from '../../server/photos/photo-service.js';
+import { createPourLayer } from '../../server/pours/pour-layer-service.js';
 import { createPour } from '../../server/pours/pour-service.js';
 import { createContainer, createMaterial } from '../../server/shelf/shelf-service.js';
 import type { TestAccount } from './accounts.js';
 import { benchJpeg } from './photos.js';
 import { TEST_DATA_SHEET } from './shelf.js';
 
-/** One of each record in a workshop, made through the services: a build with a step, a material, its two parts, a pour, a photo. */
+/**
+ * One of each record in a workshop, made through the services: a build with a step, a material, its two
+ * parts, a pour planned in three layers with layer 2 recorded (layer 3 still to come), a photo.
+ */
 export async function makeRecords(ctx: ServerContext, owner: TestAccount, workshopId: string) {
   const [buildId, stepId, materialId, containerId, partBId, pourId] = [v7(), v7(), v7(), v7(), v7(), v7()];
-  const photoId = v7();
+  const [photoId, layerId] = [v7(), v7()];
   await writeRecords(ctx, owner.id, workshopId, createBuild, {
     id: buildId,
     name: 'Mill race',
@@ -63,6 +67,15 @@ export async function makeRecords(ctx: ServerContext, owner: TestAccount, worksh
     scaleResolutionG: 0.1,
     whenShort: 'refuse',
     note: '',
+    layerCount: 3,
+  });
+  await writeRecords(ctx, owner.id, workshopId, createPourLayer, {
+    id: layerId,
+    pourId,
+    number: 2,
+    pouredAt: '2026-11-21T00:00:00Z',
+    roomTempC: 20,
+    note: '',
   });
   const photo = await benchJpeg({ width: 64, height: 48 });
   await uploadPhoto(
@@ -73,5 +86,5 @@ export async function makeRecords(ctx: ServerContext, owner: TestAccount, worksh
     { buildId, stepId, pourId: null, caption: 'Dry fit', takenAt: null },
     photo,
   );
-  return { buildId, stepId, materialId, containerId, pourId, photoId };
+  return { buildId, stepId, materialId, containerId, pourId, layerId, photoId };
 }

@@ -15,6 +15,8 @@ export const reminderPreferences = pgTable('reminder_preferences', {
   quietFrom: text('quiet_from'),
   quietUntil: text('quiet_until'),
   timeZone: text('time_zone').notNull(),
+  /** How long before a recoat window closes its reminder comes. */
+  recoatLeadMin: integer('recoat_lead_min').notNull().default(30),
   updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
 });
 

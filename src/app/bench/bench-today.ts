@@ -1,16 +1,20 @@
 import { inject, Injectable } from '@angular/core';
 import {
-  pourMilestones,
+  followedMilestones,
   shelfWarnings,
+  type FollowedPour,
   type MixAmounts,
   type PourMilestone,
+  type PourPlan,
   type ShelfWarning,
 } from '@benchtide/shared';
 import { format } from 'date-fns';
 import { AccountSession } from '../core/account-session';
 import { BenchDb } from '../sync/bench-db';
 import { remainingOnDevice } from '../sync/device-stock';
+import { followLocalPour, layersOfPours } from '../sync/followed-pour';
 import { liveSignalOf } from '../sync/live-signal';
+import type { LocalPour, LocalPourLayer } from '../sync/synced-records';
 
 /** A pour on the bench whose cure is still running (or finished within the last hours). */
 export interface PourOnBench {
@@ -21,8 +25,19 @@ export interface PourOnBench {
   readonly note: string;
   readonly startMs: number;
   readonly layerCount: number;
+  /** As it stood when the records were read: layers to come are re-projected from the bench's clock by `followAt`. */
+  readonly followed: FollowedPour;
   readonly milestones: readonly PourMilestone[];
   readonly mix: MixAmounts;
+  readonly plan: PourPlan;
+  /** What the pour is followed from: its record and the layers recorded so far. */
+  readonly record: Pick<LocalPour, 'request' | 'plan' | 'layerCount'>;
+  readonly layers: readonly LocalPourLayer[];
+}
+
+/** The pour as really poured, layers still to come projected no earlier than `nowMs`. */
+export function followAt(pour: Pick<PourOnBench, 'record' | 'layers'>, nowMs: number): FollowedPour {
+  return followLocalPour(pour.record, pour.layers, nowMs);
 }
 
 export interface ShelfNotice extends ShelfWarning {
@@ -51,12 +66,18 @@ export class BenchToday {
   );
 
   private async runningPours(workshopId: string): Promise<PourOnBench[]> {
-    const since = Date.now() - KEEP_AFTER_CURE_MS;
-    const pours = await this.db.pours
+    const nowMs = Date.now();
+    const live = await this.db.pours
       .where('workshopId')
       .equals(workshopId)
-      .filter((pour) => pour.deletedAt === null && pour.plan !== null && pour.plan.cure.fullCureAtMs > since)
+      .filter((pour) => pour.deletedAt === null && pour.plan !== null)
       .toArray();
+    const layers = await layersOfPours(
+      this.db,
+      live.map((pour) => pour.id),
+    );
+    const followed = new Map(live.map((pour) => [pour.id, followLocalPour(pour, layers.get(pour.id) ?? [], nowMs)]));
+    const pours = live.filter((pour) => followed.get(pour.id)!.fullCureAtMs > nowMs - KEEP_AFTER_CURE_MS);
     const builds = await this.names(
       this.db.builds,
       pours.map((pour) => pour.buildId),
@@ -66,17 +87,24 @@ export class BenchToday {
       pours.map((pour) => pour.materialId),
     );
     return pours
-      .map((pour) => ({
-        id: pour.id,
-        buildId: pour.buildId,
-        buildName: builds.get(pour.buildId) ?? 'A build not on this device',
-        materialName: materials.get(pour.materialId) ?? 'a material not on this device',
-        note: pour.note,
-        startMs: Date.parse(pour.startAt),
-        layerCount: pour.plan!.layers.count,
-        milestones: pourMilestones(pour.plan!.cure),
-        mix: pour.plan!.mix,
-      }))
+      .map((pour) => {
+        const now = followed.get(pour.id)!;
+        return {
+          id: pour.id,
+          buildId: pour.buildId,
+          buildName: builds.get(pour.buildId) ?? 'A build not on this device',
+          materialName: materials.get(pour.materialId) ?? 'a material not on this device',
+          note: pour.note,
+          startMs: Date.parse(pour.startAt),
+          layerCount: now.layerCount,
+          followed: now,
+          milestones: followedMilestones(now),
+          mix: pour.plan.mix,
+          plan: { ...pour.plan, request: pour.request } as PourPlan,
+          record: pour,
+          layers: layers.get(pour.id) ?? [],
+        };
+      })
       .sort((a, b) => a.startMs - b.startMs);
   }
 

@@ -3,7 +3,7 @@ import { provideHttpClientTesting } from '@angular/common/http/testing';
 import { inject, provideAppInitializer } from '@angular/core';
 import { type ComponentFixture, DeferBlockBehavior, TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
-import { planPour, type MaterialDataSheet, type SessionView } from '@benchtide/shared';
+import { firstLayer, planPour, type MaterialDataSheet, type SessionView } from '@benchtide/shared';
 import { v7 } from 'uuid';
 import { BenchIcons } from '../core/bench-icons';
 import { BENCH_DB_NAME, BenchDb } from '../sync/bench-db';
@@ -95,10 +95,13 @@ async function putPour(db: BenchDb, buildId: string, materialId: string, hoursAg
     startAt,
     request,
     plan,
+    layerCount: plan.layers.count,
     shortfall: [],
     note: '',
   };
   await db.pours.put(pour);
+  // Layer 1 goes on with its pour and shares its id, as the store writes it.
+  await db.pourLayers.put({ id: pour.id, ...synced(), pourId: pour.id, ...firstLayer(plan, startAt, 20) });
   return pour;
 }
 
@@ -259,7 +262,7 @@ describe('Bench', () => {
 
       expect(queryAll('bt-pour-timer h3').map(textOf)).toEqual(['Harbour diorama']);
       expect(query('.empty')).toBeNull();
-      expect(textOf(query('.estimate'))).toBe(
+      expect(textOf(query('bt-bench-board > section > .estimate, .curing > .estimate'))).toBe(
         'Cure times are estimates from the data sheet and the room temperature you gave.',
       );
     });

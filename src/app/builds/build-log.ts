@@ -1,20 +1,50 @@
 import { Injectable, Injector, computed, inject, signal, type Signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
-import { buildPatchSchema, may, stepPatchSchema, type NewBuild, type NewStep } from '@benchtide/shared';
+import {
+  buildPatchSchema,
+  may,
+  stepPatchSchema,
+  type NewBuild,
+  type NewStep,
+  type PourLayerPatch,
+} from '@benchtide/shared';
 import { interval, map, startWith } from 'rxjs';
 import type * as z from 'zod';
 import { AccountSession } from '../core/account-session';
 import { BuildPhotos } from '../photos/build-photos';
+import { layersOfPours } from '../pours/followed-pour';
+import { BenchDb } from '../sync/bench-db';
+import { liveSignalOf } from '../sync/live-signal';
 import { LocalRecords } from '../sync/local-records';
 import { OfflineStore } from '../sync/offline-store';
 import type { PhotoTarget, PickedPhoto } from '../sync/photo-upload-queue';
-import type { LocalBuild, LocalContainer, LocalLedgerEntry, LocalPour, LocalStep } from '../sync/synced-records';
+import type {
+  LocalBuild,
+  LocalContainer,
+  LocalLedgerEntry,
+  LocalPour,
+  LocalPourLayer,
+  LocalStep,
+} from '../sync/synced-records';
 import { liveByKey } from './live-by-key';
 
 /** An amount of money in the minor unit (cents, pence) of one currency; currencies are never added together. */
 export interface MoneySum {
   readonly currency: string;
   readonly minor: number;
+}
+
+/** What a pour drew from one part's containers in one unit: what goes back to the shelf if it is deleted. */
+export interface PourDrawn {
+  readonly part: LocalContainer['part'];
+  readonly unit: LocalContainer['unit'];
+  readonly quantity: number;
+}
+
+/** What a pour took from the shelf and what that cost, from this device's stock books. */
+export interface PourDraw {
+  readonly drawn: readonly PourDrawn[];
+  readonly costs: readonly MoneySum[];
 }
 
 /** A build as its card on the Builds list shows it. */
@@ -32,6 +62,10 @@ export interface FollowedBuild {
   readonly steps: Signal<LocalStep[]>;
   readonly pours: Signal<LocalPour[]>;
   readonly costs: Signal<readonly MoneySum[]>;
+  /** The layers really poured of each pour, by pour id, lowest first. */
+  readonly layers: Signal<ReadonlyMap<string, readonly LocalPourLayer[]>>;
+  /** What each pour drew from the shelf and cost, by pour id. */
+  readonly draws: Signal<ReadonlyMap<string, PourDraw>>;
 }
 
 /** A new record as a form gives it: the store makes the id unless the form made it already. */
@@ -50,6 +84,7 @@ export class BuildLog {
   private readonly session = inject(AccountSession);
   private readonly records = inject(LocalRecords);
   private readonly store = inject(OfflineStore);
+  private readonly db = inject(BenchDb);
   private readonly photos = inject(BuildPhotos);
   private readonly injector = inject(Injector);
 
@@ -71,7 +106,7 @@ export class BuildLog {
     { requireSync: true },
   );
 
-  private costsByPour: Signal<ReadonlyMap<string, readonly MoneySum[]>> | null = null;
+  private drawsByPour: Signal<ReadonlyMap<string, PourDraw>> | null = null;
 
   constructor() {
     // The live list starts as the empty list it was given; any answer from the records is a new array.
@@ -84,7 +119,7 @@ export class BuildLog {
     const buildIds = computed(() => this.builds().map((build) => build.id), { equal: sameKeys });
     const steps = liveByKey(buildIds, (id, injector) => this.records.steps(signal(id), injector), this.injector);
     const pours = liveByKey(buildIds, (id, injector) => this.records.pours(signal(id), injector), this.injector);
-    const costsByPour = this.pourCosts();
+    const draws = this.pourDraws();
     return computed(() => {
       const now = this.now();
       const cards = this.builds().map((build) => {
@@ -92,7 +127,7 @@ export class BuildLog {
         return {
           build,
           lastActivityAt: lastActivity(build, steps().get(build.id) ?? [], buildPours, now),
-          costs: costOf(buildPours, costsByPour()),
+          costs: costOf(buildPours, draws()),
         };
       });
       return cards.sort((a, b) => Date.parse(b.lastActivityAt) - Date.parse(a.lastActivityAt));
@@ -102,7 +137,14 @@ export class BuildLog {
   /** One build of the current workshop, with its log, its pours and what they cost. */
   follow(buildId: Signal<string | null>): FollowedBuild {
     const pours = this.records.pours(buildId, this.injector);
-    const costsByPour = this.pourCosts();
+    const draws = this.pourDraws();
+    const pourIds = computed(() => pours().map((pour) => pour.id), { equal: sameKeys });
+    const layers = liveSignalOf(
+      pourIds,
+      (ids): Promise<ReadonlyMap<string, readonly LocalPourLayer[]>> => layersOfPours(this.db, ids),
+      new Map<string, readonly LocalPourLayer[]>(),
+      this.injector,
+    );
     return {
       build: computed(() => {
         if (!this.loaded()) return undefined;
@@ -111,7 +153,9 @@ export class BuildLog {
       }),
       steps: this.records.steps(buildId, this.injector),
       pours,
-      costs: computed(() => costOf(pours(), costsByPour())),
+      costs: computed(() => costOf(pours(), draws())),
+      layers,
+      draws,
     };
   }
 
@@ -134,17 +178,38 @@ export class BuildLog {
     return this.store.remove('step', this.requireWorkshop(), id);
   }
 
+  /** A pour's note corrected after it was logged. */
+  async correctPourNote(pourId: string, note: string): Promise<void> {
+    return this.store.patch('pour', this.requireWorkshop(), pourId, { note });
+  }
+  /** A poured layer's time, room, weighed amounts or note corrected; later moments re-time from it. */
+  async correctLayer(layerId: string, patch: PourLayerPatch): Promise<void> {
+    return this.store.correctLayer(this.requireWorkshop(), layerId, patch);
+  }
+  /** Takes back the top layer, recorded by mistake; its stock goes back to the shelf. */
+  async takeBackLayer(layerId: string): Promise<void> {
+    return this.store.takeBackLayer(this.requireWorkshop(), layerId);
+  }
+  /** The layers now planned: one skipped, or one added for thin detail or a tint. */
+  async replanPour(pourId: string, layerCount: number): Promise<void> {
+    return this.store.replanPour(this.requireWorkshop(), pourId, layerCount);
+  }
+  /** Deletes a pour: its layers, the stock it drew (back to the shelf), its cost and its reminders go with it. */
+  async deletePour(pourId: string): Promise<void> {
+    return this.store.remove('pour', this.requireWorkshop(), pourId);
+  }
+
   /** Photos for a build, step or pour, stored in one transaction with `alongside` (the step they come with). */
   async addPhotos(target: PhotoTarget, photos: readonly PickedPhoto[], alongside?: () => Promise<unknown>) {
     return this.photos.add(this.requireWorkshop(), target, photos, alongside);
   }
 
   /**
-   * What each pour cost, from the stock books of the workshop's containers: the records on this device are
-   * kept by material, container and entry, so the books are read container by container. Made once per screen.
+   * What each pour drew and cost, from the stock books of the workshop's containers: the records on this device
+   * are kept by material, container and entry, so the books are read container by container. Made once per screen.
    */
-  private pourCosts(): Signal<ReadonlyMap<string, readonly MoneySum[]>> {
-    if (this.costsByPour !== null) return this.costsByPour;
+  private pourDraws(): Signal<ReadonlyMap<string, PourDraw>> {
+    if (this.drawsByPour !== null) return this.drawsByPour;
     const materialIds = computed(() => this.materials().map((material) => material.id), { equal: sameKeys });
     const containersByMaterial = liveByKey(
       materialIds,
@@ -154,8 +219,8 @@ export class BuildLog {
     const containers = computed(() => [...containersByMaterial().values()].flat());
     const containerIds = computed(() => containers().map((container) => container.id), { equal: sameKeys });
     const books = liveByKey(containerIds, (id, injector) => this.records.ledger(signal(id), injector), this.injector);
-    this.costsByPour = computed(() => pourCostsFrom(containers(), books()));
-    return this.costsByPour;
+    this.drawsByPour = computed(() => pourDrawsFrom(containers(), books()));
+    return this.drawsByPour;
   }
 
   private requireWorkshop(): string {
@@ -180,26 +245,38 @@ function lastActivity(build: LocalBuild, steps: readonly LocalStep[], pours: rea
   return latest;
 }
 
-function pourCostsFrom(
+function pourDrawsFrom(
   containers: readonly LocalContainer[],
   books: ReadonlyMap<string, readonly LocalLedgerEntry[]>,
-): ReadonlyMap<string, readonly MoneySum[]> {
-  const currencyOf = new Map(containers.map((container) => [container.id, container.currency]));
-  const byPour = new Map<string, MoneySum[]>();
+): ReadonlyMap<string, PourDraw> {
+  const containerOf = new Map(containers.map((container) => [container.id, container]));
+  const byPour = new Map<string, PourDraw>();
   for (const entries of books.values()) {
     for (const entry of entries) {
-      const currency = currencyOf.get(entry.containerId);
-      if (entry.pourId === null || currency === undefined) continue;
-      byPour.set(entry.pourId, addMoney(byPour.get(entry.pourId) ?? [], { currency, minor: entry.costMinor }));
+      const container = containerOf.get(entry.containerId);
+      if (entry.pourId === null || container === undefined) continue;
+      const draw = byPour.get(entry.pourId) ?? { drawn: [], costs: [] };
+      byPour.set(entry.pourId, {
+        drawn: addDrawn(draw.drawn, { part: container.part, unit: container.unit, quantity: -entry.quantity }),
+        costs: addMoney(draw.costs, { currency: container.currency, minor: entry.costMinor }),
+      });
     }
   }
   return byPour;
 }
 
-function costOf(pours: readonly LocalPour[], costsByPour: ReadonlyMap<string, readonly MoneySum[]>): MoneySum[] {
+function addDrawn(drawn: readonly PourDrawn[], add: PourDrawn): PourDrawn[] {
+  const same = (line: PourDrawn) => line.part === add.part && line.unit === add.unit;
+  const lines = drawn.some(same)
+    ? drawn.map((line) => (same(line) ? { ...line, quantity: line.quantity + add.quantity } : line))
+    : [...drawn, add];
+  return lines.sort((a, b) => a.part.localeCompare(b.part));
+}
+
+function costOf(pours: readonly LocalPour[], draws: ReadonlyMap<string, PourDraw>): MoneySum[] {
   let total: MoneySum[] = [];
   for (const pour of pours) {
-    for (const sum of costsByPour.get(pour.id) ?? []) total = addMoney(total, sum);
+    for (const sum of draws.get(pour.id)?.costs ?? []) total = addMoney(total, sum);
   }
   return total.sort((a, b) => a.currency.localeCompare(b.currency));
 }

@@ -239,6 +239,59 @@ describe('BuildPage', () => {
       expect(types).toEqual(['step.patch', 'step.delete']);
     });
 
+    // The pour was started 20 h ago; layer 2 was planned for 4 h after it (recoat) and has not been recorded.
+    it('should show the layers as poured and to come, re-timed from now, beside the plan', () => {
+      const pour = query('[data-entry="pour"]')!;
+      expect(text(pour.querySelector('[data-field="layer-progress"]'))).toBe('1 of 2 layers poured');
+      const second = pour.querySelector('[data-layer="2"]')!;
+      const planned = format(Date.parse(pourStart) + 4 * 3_600_000, WHEN);
+      expect(text(second)).toContain('expected');
+      expect(text(second.querySelector('[data-field="planned-at"]'))).toBe(`(planned ${planned})`);
+    });
+
+    it('should add a layer to the pour, keeping layer 1 as poured', async () => {
+      await (
+        await loader.getHarness(MatButtonHarness.with({ text: 'Add a layer', ancestor: '[data-entry="pour"]' }))
+      ).click();
+      await settle('three layers', () => text('[data-field="layer-progress"]') === '1 of 3 layers poured');
+      const types = (await db.outbox.toArray()).map((row) => row.mutation.type);
+      expect(types).toEqual(['pour.patch']);
+      expect((await db.pourLayers.toArray()).filter((layer) => layer.deletedAt === null).length).toBe(1);
+    });
+
+    it('should correct the note of a pour', async () => {
+      await (
+        await loader.getHarness(MatButtonHarness.with({ text: 'Correct…', ancestor: '[data-entry="pour"]' }))
+      ).click();
+      await fixture.whenStable();
+      await type('Note of the pour', 'Tail race, tinted green');
+      await press('Save correction');
+      await settle('the corrected note', () => text('[data-entry="pour"] .notes') === 'Tail race, tinted green');
+      const types = (await db.outbox.toArray()).map((row) => row.mutation.type);
+      expect(types).toEqual(['pour.patch']);
+    });
+
+    it('should delete a pour once told what goes back, and its stock and cost with it', async () => {
+      await (
+        await loader.getHarness(MatButtonHarness.with({ text: 'Delete…', ancestor: '[data-entry="pour"]' }))
+      ).click();
+      await fixture.whenStable();
+      // putPourUse drew 10 g of part A, costed 1240 cents.
+      const confirm = text('[data-confirm="delete-pour"]');
+      expect(confirm).toContain('The stock it drew goes back to the shelf: part A 10 g.');
+      expect(confirm).toContain('12.40');
+      expect(confirm).toContain('Its reminders are cancelled');
+      await press('Delete the pour');
+
+      await settle('the pour gone', () => entries().length === 3);
+      expect(text('[data-field="cost"]')).toBe('no costed pours yet');
+      const uses = (await db.ledgerEntries.toArray()).filter((use) => use.kind === 'pour-use');
+      expect(uses.every((use) => use.deletedAt !== null)).toBeTrue();
+      expect((await db.pourLayers.toArray()).every((layer) => layer.deletedAt !== null)).toBeTrue();
+      const types = (await db.outbox.toArray()).map((row) => row.mutation.type);
+      expect(types).toEqual(['pour.delete']);
+    });
+
     it('should offer the pour screen for this build and the editor', async () => {
       const logPour = await loader.getHarness(MatButtonHarness.with({ text: /Log a pour/ }));
       const edit = await loader.getHarness(MatButtonHarness.with({ text: /Edit/ }));

@@ -25,8 +25,8 @@ import { ProblemNote } from '../core/problem-note';
 import { BuildPhotos, type BuildPhoto } from '../photos/build-photos';
 import { PhotoGallery } from '../photos/photo-gallery';
 import { PhotoStrip } from '../photos/photo-strip';
-import type { LocalStep } from '../sync/synced-records';
-import { BuildLog } from './build-log';
+import type { LocalPourLayer, LocalStep } from '../sync/synced-records';
+import { BuildLog, type PourDraw } from './build-log';
 import { BuildSheet, type SheetHeader, type SheetStep } from './build-sheet';
 import {
   STATUS_SHOWN,
@@ -38,6 +38,7 @@ import {
   sizeText,
   type StepKind,
 } from './build-words';
+import { PourEntry } from './pour-entry';
 import { pourRecipe, type PourRecipe, type PourRecord } from './pour-recipe';
 import { StepForm } from './step-form';
 import { WorkshopNeeded } from './workshop-needed';
@@ -46,7 +47,13 @@ export type LogFilter = 'all' | 'steps' | 'pours' | StepKind;
 
 type LogEntry =
   | { readonly kind: 'step'; readonly id: string; readonly atMs: number; readonly step: LocalStep }
-  | { readonly kind: 'pour'; readonly id: string; readonly atMs: number; readonly pour: PourRecipe };
+  | {
+      readonly kind: 'pour';
+      readonly id: string;
+      readonly atMs: number;
+      readonly pour: PourRecipe;
+      readonly record: PourRecord;
+    };
 
 const FILTERS: readonly { readonly value: LogFilter; readonly label: string }[] = [
   { value: 'all', label: 'All' },
@@ -55,6 +62,7 @@ const FILTERS: readonly { readonly value: LogFilter; readonly label: string }[] 
   ...STEP_KINDS.map((kind) => ({ value: kind, label: STEP_KIND_WORDS[kind] })),
 ];
 const WHEN = 'EEE d MMM yyyy, HH:mm';
+const NO_LAYERS: readonly LocalPourLayer[] = [];
 
 /**
  * One build and its log: the scale, the base and the real footprint it shows, then every step and pour,
@@ -71,6 +79,7 @@ const WHEN = 'EEE d MMM yyyy, HH:mm';
     BuildSheet,
     PhotoGallery,
     PhotoStrip,
+    PourEntry,
     ProblemNote,
     StepForm,
     WorkshopNeeded,
@@ -116,7 +125,7 @@ export class BuildPage {
     }
     return byEntry;
   });
-  private readonly units = computed<DisplayUnits>(() => {
+  protected readonly units = computed<DisplayUnits>(() => {
     const { unitSystem, temperatureUnit } = this.preferences.values();
     return { ...displayUnitsFor(unitSystem), temperature: temperatureUnit };
   });
@@ -165,10 +174,17 @@ export class BuildPage {
       filter === 'pours'
         ? []
         : this.followed.steps().filter((step) => filter === 'all' || filter === 'steps' || step.kind === filter);
+    const records = new Map(this.followed.pours().map((pour) => [pour.id, pour as PourRecord]));
     const pours = filter === 'all' || filter === 'pours' ? this.recipes() : [];
     const entries: LogEntry[] = [
       ...steps.map((step) => ({ kind: 'step' as const, id: step.id, atMs: Date.parse(step.happenedAt), step })),
-      ...pours.map((pour) => ({ kind: 'pour' as const, id: pour.id, atMs: pour.startAtMs, pour })),
+      ...pours.map((pour) => ({
+        kind: 'pour' as const,
+        id: pour.id,
+        atMs: pour.startAtMs,
+        pour,
+        record: records.get(pour.id)!,
+      })),
     ];
     return entries.sort((a, b) => b.atMs - a.atMs);
   });
@@ -188,6 +204,14 @@ export class BuildPage {
       this.followed.pours().filter((pour) => pour.pending).length +
       this.followed.steps().filter((step) => step.pending).length,
   );
+
+  protected layersOf(pourId: string): readonly LocalPourLayer[] {
+    return this.followed.layers().get(pourId) ?? NO_LAYERS;
+  }
+
+  protected drawOf(pourId: string): PourDraw | undefined {
+    return this.followed.draws().get(pourId);
+  }
 
   protected photosOf(entryId: string): readonly BuildPhoto[] {
     return this.photosByEntry().get(entryId) ?? [];

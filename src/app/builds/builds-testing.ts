@@ -9,7 +9,7 @@ import {
   type Provider,
 } from '@angular/core';
 import { provideRouter, withComponentInputBinding } from '@angular/router';
-import { planPour, type MaterialDataSheet, type Role, type SessionView } from '@benchtide/shared';
+import { firstLayer, planPour, type MaterialDataSheet, type Role, type SessionView } from '@benchtide/shared';
 import { v7 } from 'uuid';
 import { BenchIcons } from '../core/bench-icons';
 import { BENCH_DB_NAME, type BenchDb } from '../sync/bench-db';
@@ -136,8 +136,11 @@ export async function putPour(db: BenchDb, buildId: string, materialId: string, 
     plan: planned ? plan : null,
     shortfall: [],
     note: '',
+    layerCount: plan.layers.count,
   };
   await db.pours.put(pour as never);
+  // Layer 1 goes on with its pour and shares its id, as the store writes it.
+  await db.pourLayers.put({ id: pour.id, ...synced(startAt), pourId: pour.id, ...firstLayer(plan, startAt, 20) });
   return pour;
 }
 

@@ -173,6 +173,7 @@ describe('LogPour', () => {
       plan,
       shortfall: [],
       note: 'Mill pond',
+      layerCount: plan.layers.count,
     };
     await db.pours.put(pour);
   }
@@ -319,6 +320,55 @@ describe('LogPour', () => {
         expect(pour?.request.depthMm).toBe(4);
         // The 11 g of each part is drawn from the shelf at once, offline: 500 - 11 = 489 g left in each.
         await shelfShows(['Part A · bought 1 Feb 2025 · 489 g left', 'Part B · bought 3 Feb 2025 · 489 g left']);
+      });
+    });
+
+    describe('the number of layers', () => {
+      beforeEach(() => render());
+
+      it('should start at the fewest the maximum layer allows and say why', async () => {
+        await typeFeature('100', '50', '25');
+
+        // ceil(25 / 10) = 3 layers (common practice: never thicker than the maximum layer).
+        expect(field('layerCount').value).toBe('3');
+        expect(hintOf('layerCount')).toBe(
+          'At least 3 for 25 mm at most 10 mm a layer; more for thin detail or tinted layers.',
+        );
+      });
+
+      it('should log the pour with the layers chosen, each thinner', async () => {
+        await typeFeature('100', '50', '25');
+        await type('layerCount', '5');
+
+        // Worked by hand: 25 mm in 5 layers is 5 mm a layer.
+        expect(textOf('[data-result="layers"]')).toBe('5 layers of 5 mm');
+        await press('Start pour');
+
+        const [pour] = await logged(1);
+        expect(pour?.layerCount).toBe(5);
+        expect(pour?.plan.layers.count).toBe(5);
+        const [first] = await db.pourLayers.where({ pourId: pour!.id }).toArray();
+        expect(first?.number).toBe(1);
+        expect(first?.depthMm).toBe(5);
+      });
+
+      it('should refuse fewer layers than the maximum layer allows, and save nothing', async () => {
+        await typeFeature('100', '50', '25');
+        await type('layerCount', '2');
+
+        expect(hintOf('layerCount')).toBe(
+          'At least 3 layers: 25 mm at most 10 mm a layer. Thicker layers can overheat, crack or yellow.',
+        );
+        await press('Start pour');
+        expect(await db.pours.count()).toBe(0);
+        expect(navigate).not.toHaveBeenCalled();
+      });
+
+      it('should refuse more than 50 layers', async () => {
+        await typeFeature('100', '50', '25');
+        await type('layerCount', '51');
+
+        expect(hintOf('layerCount')).toBe('A pour can have at most 50 layers');
       });
     });
 

@@ -42,6 +42,7 @@ const FIELD_OF_PATH: Readonly<Record<string, string>> = {
   displacedMl: 'displaced',
   wastePercent: 'wastePercent',
   startAtMs: 'startAt',
+  layerCount: 'layerCount',
 };
 
 /**
@@ -135,6 +136,7 @@ export class LogPour {
       containerIds: [],
       recordShortfall: false,
     });
+    this.draft.repeatLayers(request.layerCount);
     this.draft.chooseMaterial(pour.materialId);
     this.draft.typeRoom(fieldText(fromCelsius(request.roomTempC, units.temperature)));
     // From a build's page the build stays; from the bench, the repeat goes into the last pour's build.
@@ -188,6 +190,7 @@ export class LogPour {
   /** Whether the field a message of the shared maths is about was typed in. */
   private isTyped(path: string): boolean {
     if (path === 'roomTempC') return this.draft.roomTyped();
+    if (path === 'layerCount') return this.draft.layersChosen();
     const name = FIELD_OF_PATH[path];
     const control: AbstractControl | null = name === undefined ? null : this.form.get(name);
     return control?.dirty !== false;

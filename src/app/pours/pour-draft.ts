@@ -16,7 +16,7 @@ import {
 import { map, startWith, timer } from 'rxjs';
 import { DevicePreferences } from '../core/device-preferences';
 import { parseDecimal } from '../core/decimal-input';
-import { featureControls, fieldText, shapeFrom, text } from './pour-form';
+import { featureControls, fewestLayers, fieldText, layerCountFrom, shapeFrom, text } from './pour-form';
 import { PourLog } from './pour-log';
 
 /** A room in a house, when nothing better is known (common practice). */
@@ -49,6 +49,8 @@ export class PourDraft {
     startAt: text(),
     containerIds: new FormControl<string[]>([], { nonNullable: true }),
     recordShortfall: new FormControl(false, { nonNullable: true }),
+    /** Empty: the fewest layers the material's maximum layer allows. */
+    layerCount: text(),
   });
 
   readonly builds = this.pourLog.builds();
@@ -59,6 +61,7 @@ export class PourDraft {
   private readonly chosenBuild = signal<string | null>(null);
   private readonly chosenMaterial = signal<string | null>(null);
   private readonly typedRoom = signal<string | null>(null);
+  private readonly layersTyped = signal(false);
 
   readonly value = toSignal(
     this.form.valueChanges.pipe(
@@ -117,8 +120,20 @@ export class PourDraft {
       roomTempC: toCelsius(number(this.roomTemp()), units.temperature),
       startAtMs: this.startAtMs(),
       scaleResolutionG: this.preferences.values().scaleResolutionG,
+      ...layerCountFrom(value.layerCount),
     };
   });
+  /** The fewest layers the depth takes at the material's maximum layer, and the hint saying so. */
+  readonly fewest = computed(() => {
+    const request = this.request();
+    return request === null ? null : fewestLayers(request.depthMm, request.material.maxLayerMm, this.units());
+  });
+  /** What the Layers field shows: the fewest until the modeller types there (emptied, it plans the fewest). */
+  readonly layersShown = computed(() => {
+    const typed = this.value().layerCount;
+    return typed !== '' || this.layersTyped() ? typed : String(this.fewest()?.count ?? '');
+  });
+  readonly layersChosen = computed(() => this.layersTyped() && this.value().layerCount.trim() !== '');
   readonly result = computed(() => {
     const request = this.request();
     return request === null ? null : planPour(request);
@@ -168,6 +183,7 @@ export class PourDraft {
         ...(value.containerIds.length > 0 ? { containerIds: value.containerIds } : {}),
         whenShort: value.recordShortfall ? 'record-shortfall' : 'refuse',
         note: value.note,
+        ...(request.layerCount === undefined ? {} : { layerCount: request.layerCount }),
       },
     };
   });
@@ -187,6 +203,18 @@ export class PourDraft {
 
   typeRoom(text: string): void {
     this.typedRoom.set(text);
+  }
+
+  /** Empty plans the fewest layers; a number more than that plans thinner layers. */
+  typeLayers(text: string): void {
+    this.layersTyped.set(true);
+    this.form.controls.layerCount.setValue(text);
+  }
+
+  /** A repeated pour's layers: the number it chose, or the fewest again when it chose none. */
+  repeatLayers(layerCount: number | undefined): void {
+    this.layersTyped.set(layerCount !== undefined);
+    this.form.controls.layerCount.setValue(layerCount === undefined ? '' : String(layerCount));
   }
 
   /** Remembers the build poured into, for the next pour on this device. */

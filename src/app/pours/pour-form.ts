@@ -1,12 +1,14 @@
 import { FormControl, FormGroup } from '@angular/forms';
 import {
   findMaterialPreset,
+  formatLength,
   fromCelsius,
   fromMl,
   fromMm,
   toCelsius,
   toMl,
   toMm,
+  splitIntoLayers,
   type DisplayUnits,
   type MaterialDataSheetInput,
   type PourPlanRequestInput,
@@ -55,6 +57,8 @@ export function createPourForm() {
     maxLayer: text(),
     roomTemp: text(),
     startAt: text(),
+    /** Empty: the fewest layers the maximum layer allows. */
+    layerCount: text(),
   });
 }
 
@@ -163,6 +167,31 @@ export function toPlanRequest(
     roomTempC: toCelsius(number(value.roomTemp), units.temperature),
     startAtMs: Number.isFinite(startAt) ? startAt : Number.NaN,
     scaleResolutionG,
+    ...layerCountFrom(value.layerCount),
+  };
+}
+
+/** The layers typed in, for a request: nothing when left empty, so the plan takes the fewest. */
+export function layerCountFrom(typed: string): { layerCount?: number } {
+  return typed.trim() === '' ? {} : { layerCount: number(typed) };
+}
+
+/**
+ * The fewest layers a depth takes at the data sheet's maximum layer, and the hint under the field;
+ * null while the depth or the maximum layer is not a number yet.
+ */
+export function fewestLayers(
+  depthMm: number,
+  maxLayerMm: number,
+  units: DisplayUnits,
+): { readonly count: number; readonly hint: string } | null {
+  if (!Number.isFinite(depthMm) || !Number.isFinite(maxLayerMm) || depthMm <= 0 || maxLayerMm <= 0) return null;
+  const { count } = splitIntoLayers(depthMm, maxLayerMm);
+  const depth = formatLength(depthMm, units.length);
+  const most = formatLength(maxLayerMm, units.length);
+  return {
+    count,
+    hint: `At least ${count} for ${depth} at most ${most} a layer; more for thin detail or tinted layers.`,
   };
 }
 

@@ -203,6 +203,66 @@ describe('PourPlanner', () => {
     });
   });
 
+  describe('the number of layers', () => {
+    beforeEach(render);
+
+    function layers(): Promise<MatInputHarness> {
+      return loader.getHarness(MatInputHarness.with({ selector: '[data-field="layerCount"]' }));
+    }
+    async function layersHint(): Promise<string> {
+      const field = await loader.getHarness(MatFormFieldHarness.with({ floatingLabelText: 'Layers' }));
+      return (await field.getTextHints()).join(' ');
+    }
+
+    it('should start at the fewest the maximum layer allows and say why', async () => {
+      await shape.setValue('depth', '120');
+
+      // ceil(120 / 50) = 3 (common practice: never thicker than the maximum layer).
+      expect(await (await layers()).getValue()).toBe('3');
+      expect(await layersHint()).toBe(
+        'At least 3 for 120 mm at most 50 mm a layer; more for thin detail or tinted layers.',
+      );
+    });
+
+    it('should plan more, thinner layers when more are chosen', async () => {
+      await shape.setValue('depth', '120');
+      await (await layers()).setValue('4');
+      await fixture.whenStable();
+
+      // Worked by hand: 120 mm / 4 = 30 mm a layer; 712.8 mL / 4 = 178.2 mL a layer.
+      expect(await sheet.getResult('layers')).toBe('4 layers of 30 mm');
+      expect(await sheet.getLayerNote()).toBe('178 mL each; this material allows 50 mm at most');
+    });
+
+    it('should refuse fewer layers than the maximum layer allows, in plain words', async () => {
+      await shape.setValue('depth', '120');
+      await (await layers()).setValue('2');
+      await fixture.whenStable();
+
+      const message = 'At least 3 layers: 120 mm at most 50 mm a layer. Thicker layers can overheat, crack or yellow.';
+      expect(await layersHint()).toBe(message);
+      expect(await sheet.getProblems()).toEqual([message]);
+      expect(await sheet.hasResults()).toBeFalse();
+    });
+
+    it('should refuse more than 50 layers', async () => {
+      await (await layers()).setValue('51');
+      await fixture.whenStable();
+
+      expect(await layersHint()).toBe('A pour can have at most 50 layers');
+      expect(await sheet.hasResults()).toBeFalse();
+    });
+
+    it('should go back to the fewest when the field is emptied', async () => {
+      await shape.setValue('depth', '120');
+      await (await layers()).setValue('5');
+      await (await layers()).setValue('');
+      await fixture.whenStable();
+
+      expect(await sheet.getResult('layers')).toBe('3 layers of 40 mm');
+    });
+  });
+
   describe('values that make no sense', () => {
     beforeEach(render);
 

@@ -1,4 +1,4 @@
-import { ChangeDetectionStrategy, Component, computed, effect, inject, untracked } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, effect, inject, signal, untracked } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { ReactiveFormsModule } from '@angular/forms';
 import { MatCardModule } from '@angular/material/card';
@@ -15,7 +15,7 @@ import { PourPlanDraft } from './pour-plan-draft';
 import { PourPlanSheet } from './pour-plan-sheet';
 import { DataSheetFields, dataSheetErrors } from './data-sheet-fields';
 import { FeatureShapeFields } from './feature-shape-fields';
-import { convertFields, presetFields, toPlanRequest } from './pour-form';
+import { convertFields, fewestLayers, presetFields, toPlanRequest } from './pour-form';
 import { ROOMY_FORM_FIELDS } from '../core/form-field-defaults';
 
 function sameUnits(a: DisplayUnits, b: DisplayUnits): boolean {
@@ -63,9 +63,18 @@ export class PourPlanner {
     ),
     { requireSync: true },
   );
-  protected readonly result = computed(() =>
-    planPour(toPlanRequest(this.formValue(), this.units(), this.scaleResolutionG())),
-  );
+  protected readonly result = computed(() => planPour(this.request()));
+  protected readonly request = computed(() => toPlanRequest(this.formValue(), this.units(), this.scaleResolutionG()));
+  protected readonly fewest = computed(() => {
+    const request = this.request();
+    return fewestLayers(request.depthMm, request.material.maxLayerMm, this.units());
+  });
+  private readonly layersTyped = signal(false);
+  /** What the Layers field shows: the fewest until the modeller types there (emptied, it plans the fewest). */
+  protected readonly layersShown = computed(() => {
+    const typed = this.formValue().layerCount;
+    return typed !== '' || this.layersTyped() ? typed : String(this.fewest()?.count ?? '');
+  });
   protected readonly errors = computed(() => {
     const result = this.result();
     return result.ok ? new Map<string, string>() : new Map(result.errors.map((error) => [error.path, error.message]));
@@ -100,6 +109,11 @@ export class PourPlanner {
 
   protected chooseResolution(scaleResolutionG: number): void {
     this.preferences.update({ scaleResolutionG });
+  }
+
+  protected typeLayers(typed: string): void {
+    this.layersTyped.set(true);
+    this.form.controls.layerCount.setValue(typed);
   }
 
   protected startNow(): void {

@@ -3,6 +3,7 @@ import {
   Component,
   DestroyRef,
   afterNextRender,
+  computed,
   inject,
   input,
   output,
@@ -10,6 +11,16 @@ import {
   type ElementRef,
   viewChild,
 } from '@angular/core';
+import { MatFormFieldModule } from '@angular/material/form-field';
+import { MatInputModule } from '@angular/material/input';
+import { weighedRatioProblem, type PourPlan } from '@benchtide/shared';
+import { inputText, parseDecimal } from '../core/decimal-input';
+
+/** What the scale showed for a layer; part B is null for a single-part medium. Absent when left empty. */
+export interface WeighedLayer {
+  readonly partAG?: number;
+  readonly partBG?: number;
+}
 
 interface WakeLockHandle {
   release(): Promise<void>;
@@ -18,86 +29,15 @@ interface WakeLockHandle {
 /**
  * What to put on the scale for one layer, in very large type, readable from arm's length with gloves on.
  * The screen is kept awake while it is open (where the browser allows), so it does not dim mid-pour.
+ * Given a layer and its plan, it also takes what the scale really showed and records the layer with it,
+ * saying first when the two parts are off the data sheet's ratio (recording still goes).
  */
 @Component({
   selector: 'bt-weigh-view',
+  imports: [MatFormFieldModule, MatInputModule],
   host: { '(document:keydown.escape)': 'close()' },
-  template: `
-    <div class="weigh" role="dialog" aria-modal="true" aria-labelledby="weigh-title">
-      <h2 id="weigh-title">Weigh for each layer{{ layerCount() > 1 ? ' (' + layerCount() + ' layers)' : '' }}</h2>
-      <p class="step">1. Tare the cup on the scale.</p>
-      <p class="part" data-weigh="a">
-        <span class="name">{{ partB() === null ? 'Medium' : 'Part A' }}</span>
-        <span class="amount">{{ partA() }}</span>
-      </p>
-      @if (partB(); as partB) {
-        <p class="step">2. Tare again, then add</p>
-        <p class="part" data-weigh="b">
-          <span class="name">Part B</span>
-          <span class="amount">{{ partB }}</span>
-        </p>
-      }
-      <p class="awake" role="status">{{ awake() ? 'The screen stays on while this is open.' : '' }}</p>
-      <button #done type="button" class="done" (click)="close()">Done weighing</button>
-    </div>
-  `,
-  styles: `
-    .weigh {
-      position: fixed;
-      inset: 0;
-      z-index: 10;
-      display: flex;
-      flex-direction: column;
-      justify-content: center;
-      gap: 12px;
-      padding: 24px;
-      background: var(--mat-sys-surface);
-      color: var(--mat-sys-on-surface);
-      overflow-y: auto;
-    }
-    h2 {
-      margin: 0;
-      font: var(--mat-sys-title-large);
-    }
-    .step {
-      margin: 8px 0 0;
-      color: var(--mat-sys-on-surface-variant);
-      font-size: 1.25rem;
-    }
-    .part {
-      display: flex;
-      flex-direction: column;
-      margin: 0;
-    }
-    .name {
-      font-size: 1.5rem;
-      font-weight: 600;
-    }
-    .amount {
-      font-size: clamp(3.5rem, 18vw, 7rem);
-      font-weight: 700;
-      line-height: 1;
-      font-variant-numeric: tabular-nums;
-    }
-    .awake {
-      min-height: 1.5em;
-      margin: 0;
-      color: var(--mat-sys-on-surface-variant);
-    }
-    .done {
-      min-height: 64px;
-      border: none;
-      border-radius: 32px;
-      background: var(--mat-sys-primary);
-      color: var(--mat-sys-on-primary);
-      font: var(--mat-sys-title-medium);
-      cursor: pointer;
-    }
-    .done:focus-visible {
-      outline: 3px solid var(--mat-sys-tertiary);
-      outline-offset: 3px;
-    }
-  `,
+  templateUrl: './weigh-view.html',
+  styleUrl: './weigh-view.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class WeighView {
@@ -106,10 +46,33 @@ export class WeighView {
   /** Null for a single-part medium. */
   readonly partB = input.required<string | null>();
   readonly layerCount = input.required<number>();
+  /** The one layer being weighed, when the view records it. */
+  readonly layer = input<number | null>(null);
+  /** With `layer`: the plan the weighed amounts are judged against; the view then records the layer. */
+  readonly plan = input<PourPlan | null>(null);
+  /** Why the last recording was refused, in plain words. */
+  readonly problem = input<string | null>(null);
   readonly closed = output<void>();
+  readonly recorded = output<WeighedLayer>();
 
   private readonly done = viewChild.required<ElementRef<HTMLButtonElement>>('done');
   protected readonly awake = signal(false);
+  protected readonly recording = computed(() => this.layer() !== null && this.plan() !== null);
+  protected readonly weighedAText = signal('');
+  protected readonly weighedBText = signal('');
+  private readonly weighed = computed<WeighedLayer>(() => {
+    const partAG = parseDecimal(this.weighedAText());
+    const partBG = this.partB() === null ? null : parseDecimal(this.weighedBText());
+    return { ...(partAG === null ? {} : { partAG }), ...(partBG === null ? {} : { partBG }) };
+  });
+  /** Shown once something is typed, before recording: the words say what to add. */
+  protected readonly ratioProblem = computed(() => {
+    const plan = this.plan();
+    const { partAG, partBG } = this.weighed();
+    if (plan === null || (partAG === undefined && partBG === undefined)) return null;
+    return weighedRatioProblem(plan, { partAG: partAG ?? 0, partBG: partBG ?? 0 });
+  });
+  protected readonly text = inputText;
   private lock: WakeLockHandle | null = null;
   private gone = false;
 
@@ -126,6 +89,10 @@ export class WeighView {
 
   protected close(): void {
     this.closed.emit();
+  }
+
+  protected record(): void {
+    this.recorded.emit(this.weighed());
   }
 
   private async keepAwake(): Promise<void> {

@@ -1,22 +1,20 @@
 import { signal } from '@angular/core';
 import { type ComponentFixture, TestBed } from '@angular/core/testing';
 import { provideRouter } from '@angular/router';
-import type { PourMilestone } from '@benchtide/shared';
 import { BenchToday, type PourOnBench } from '../bench/bench-today';
+import { benchPour } from '../bench/bench-testing';
 import { PourAlertBanner } from './pour-alert-banner';
-import { PourAlerts } from './pour-alerts';
+import { PourAlerts, notificationOptions } from './pour-alerts';
 
-function pourWith(id: string, milestones: PourMilestone[]): PourOnBench {
+const HOUR = 3_600_000;
+
+/** The bench's three-layer pour (recoat from 6 h), started so that layer 2 comes due `inMs` from now. */
+function pourDueIn(inMs: number): PourOnBench {
   return {
-    id,
+    ...benchPour(Date.now() - 6 * HOUR + inMs),
     buildId: 'build-weir',
     buildName: 'Weir at Holm',
-    materialName: 'Clear casting resin',
     note: 'Tail race',
-    startMs: Date.now() - 60_000,
-    layerCount: 2,
-    milestones,
-    mix: {} as PourOnBench['mix'],
   };
 }
 
@@ -34,16 +32,8 @@ describe('PourAlerts', () => {
     await fixture.whenStable();
   });
 
-  const soon = (ms: number) => Date.now() + ms;
-
   it('should show the moment a layer comes due while the app is open, leading to the pour', async () => {
-    pours.set([
-      pourWith('pour-1', [
-        { kind: 'pot-life-ends', atMs: soon(20), layer: 1, label: 'Working time ends (layer 1 of 2)' },
-        { kind: 'next-layer-due', atMs: soon(150), layer: 2, label: 'Layer 2 of 2 can go on' },
-        { kind: 'demould', atMs: soon(3_600_000), label: 'Can be demoulded' },
-      ]),
-    ]);
+    pours.set([pourDueIn(250)]);
     await fixture.whenStable();
     const alerts = TestBed.inject(PourAlerts);
     // Working time running out is not a reminder: the modeller is at the bench.
@@ -52,14 +42,15 @@ describe('PourAlerts', () => {
     await new Promise((resolve) => setTimeout(resolve, 200));
     expect(alerts.current()).toEqual({
       tag: 'pour:pour-1:next-layer-due:2',
-      title: 'Layer 2 of 2 can go on',
+      title: 'Layer 2 of 3 can go on',
       body: jasmine.stringContaining('Tail race on Weir at Holm'),
       buildId: 'build-weir',
       pourId: 'pour-1',
+      layer: 2,
     });
     await fixture.whenStable();
     const banner = fixture.nativeElement as HTMLElement;
-    expect(banner.querySelector('[role="alert"]')?.textContent).toContain('Layer 2 of 2 can go on');
+    expect(banner.querySelector('[role="alert"]')?.textContent).toContain('Layer 2 of 3 can go on');
     expect(banner.querySelector('a')?.getAttribute('href')).toBe('/builds/build-weir?pour=pour-1');
 
     (banner.querySelector('button') as HTMLButtonElement).click();
@@ -68,9 +59,31 @@ describe('PourAlerts', () => {
   });
 
   it('should not raise moments that passed before the app was open', async () => {
-    pours.set([pourWith('pour-2', [{ kind: 'demould', atMs: Date.now() - 1000, label: 'Can be demoulded' }])]);
+    pours.set([pourDueIn(-1000)]);
     await fixture.whenStable();
     await new Promise((resolve) => setTimeout(resolve, 100));
     expect(TestBed.inject(PourAlerts).current()).toBeNull();
+  });
+
+  it('should offer "Layer N poured" and "Weigh" on a layer\'s notification, each opening the bench at that layer', () => {
+    const options = notificationOptions({
+      tag: 't',
+      title: 'Layer 2 of 3 can go on',
+      body: '',
+      buildId: 'b',
+      pourId: 'p',
+      layer: 2,
+    });
+    expect(options.actions).toEqual([
+      { action: 'poured', title: 'Layer 2 poured' },
+      { action: 'weigh', title: 'Weigh' },
+    ]);
+    const clicks = (options.data as { onActionClick: Record<string, { url: string }> }).onActionClick;
+    expect(clicks['poured']?.url).toBe('/?pour=p&layer=2&act=poured');
+    expect(clicks['weigh']?.url).toBe('/?pour=p&weigh=2');
+    expect(clicks['default']?.url).toBe('/builds/b?pour=p');
+    expect(
+      notificationOptions({ tag: 't', title: 'Can be demoulded', body: '', buildId: 'b', pourId: 'p' }).actions,
+    ).toBeUndefined();
   });
 });

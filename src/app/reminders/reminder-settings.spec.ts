@@ -71,6 +71,7 @@ describe('ReminderSettings', () => {
       channels: ['email'],
       quietHours: null,
       timeZone: 'Europe/Dublin',
+      recoatLeadMin: 30,
     });
     request.flush({ ...SAVED, kinds: ['next-layer-due', 'demould', 'full-cure'], quietHours: null });
     await settle();
@@ -97,6 +98,41 @@ describe('ReminderSettings', () => {
     );
     const component = fixture.componentInstance as unknown as { form: { controls: { timeZone: { value: string } } } };
     expect(component.form.controls.timeZone.value).toBe(Intl.DateTimeFormat().resolvedOptions().timeZone);
+  });
+
+  it('should warn when quiet hours would hold a recoat reminder past the window, and save the lead', async () => {
+    await open(() =>
+      http.expectOne('/api/account/reminders').flush({
+        preferences: { ...SAVED, kinds: ['recoat-window-closes'], recoatLeadMin: 45 },
+        saved: true,
+        devices: [],
+      }),
+    );
+    const host = fixture.nativeElement as HTMLElement;
+    const lead = host.querySelector<HTMLInputElement>('[data-field="recoatLeadMin"]')!;
+    expect(lead.value).toBe('45');
+    // Worked by hand: quiet from 21:30, reminded 45 min before the close: windows closing 22:15–06:45 are missed.
+    expect(host.querySelector('[data-notice="recoat-quiet"]')?.textContent).toContain('between 22:15 and 06:45');
+
+    lead.value = '600';
+    lead.dispatchEvent(new Event('input'));
+    await fixture.whenStable();
+    expect(host.querySelector('[data-notice="recoat-quiet"]')).toBeNull();
+
+    lead.value = 'soon';
+    lead.dispatchEvent(new Event('input'));
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Save reminders' }))).click();
+    await settle();
+    http.expectNone('/api/account/reminders');
+    expect(host.textContent).toContain('The recoat reminder lead must be a whole number of minutes');
+
+    lead.value = '20';
+    lead.dispatchEvent(new Event('input'));
+    await (await loader.getHarness(MatButtonHarness.with({ text: 'Save reminders' }))).click();
+    const request = http.expectOne({ method: 'PUT', url: '/api/account/reminders' });
+    expect(request.request.body.recoatLeadMin).toBe(20);
+    request.flush({ ...SAVED, kinds: ['recoat-window-closes'], recoatLeadMin: 20 });
+    await settle();
   });
 
   it('should say settings need a connection when they cannot be loaded', async () => {

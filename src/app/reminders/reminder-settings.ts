@@ -1,5 +1,6 @@
 import { ChangeDetectionStrategy, Component, OnInit, computed, inject, signal } from '@angular/core';
 import { NonNullableFormBuilder, ReactiveFormsModule } from '@angular/forms';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatCheckboxModule } from '@angular/material/checkbox';
@@ -9,8 +10,10 @@ import { MatProgressBarModule } from '@angular/material/progress-bar';
 import { MatSelectModule } from '@angular/material/select';
 import { MatSlideToggleModule } from '@angular/material/slide-toggle';
 import {
+  DEFAULT_RECOAT_LEAD_MIN,
   REMINDER_CHANNELS,
   REMINDER_KINDS,
+  recoatClosesMissed,
   reminderPreferencesSchema,
   type ReminderChannel,
   type ReminderKind,
@@ -23,6 +26,7 @@ import { ReminderApi, type PushDevice } from './reminder-api';
 
 const KIND_LABELS: Record<ReminderKind, string> = {
   'next-layer-due': 'The next layer of a pour can go on',
+  'recoat-window-closes': 'Before a recoat window closes',
   demould: 'A pour can be demoulded',
   'full-cure': 'A pour has fully cured',
   'shelf-digest': 'Mondays: what on the shelf runs low or goes off',
@@ -68,6 +72,16 @@ export class ReminderSettings implements OnInit {
     quietFrom: '22:00',
     quietUntil: '07:00',
     timeZone: browserTimeZone(),
+    recoatLeadMin: String(DEFAULT_RECOAT_LEAD_MIN),
+  });
+  private readonly formValue = toSignal(this.form.valueChanges, { initialValue: this.form.getRawValue() });
+  /** The recoat windows whose reminder quiet hours would hold until after they closed, as the form stands. */
+  protected readonly recoatMissed = computed(() => {
+    this.formValue();
+    const value = this.form.getRawValue();
+    const lead = Number(value.recoatLeadMin);
+    if (!value.quiet || !value.kinds['recoat-window-closes'] || !Number.isInteger(lead) || lead < 0) return null;
+    return recoatClosesMissed({ from: value.quietFrom, until: value.quietUntil }, lead);
   });
   protected readonly submission = new Submission(this.form);
   protected readonly pushing = new Submission();
@@ -135,6 +149,8 @@ export class ReminderSettings implements OnInit {
       channels: REMINDER_CHANNELS.filter((channel) => value.channels[channel]),
       quietHours: value.quiet ? { from: value.quietFrom, until: value.quietUntil } : null,
       timeZone: value.timeZone,
+      // Typed as text so a slip reaches the schema and its plain words, not a silent 0.
+      recoatLeadMin: value.recoatLeadMin.trim() === '' ? Number.NaN : Number(value.recoatLeadMin),
     };
   }
 
@@ -149,6 +165,7 @@ export class ReminderSettings implements OnInit {
       quietFrom: preferences.quietHours?.from ?? '22:00',
       quietUntil: preferences.quietHours?.until ?? '07:00',
       timeZone: preferences.timeZone,
+      recoatLeadMin: String(preferences.recoatLeadMin ?? DEFAULT_RECOAT_LEAD_MIN),
     });
   }
 }

@@ -1,6 +1,7 @@
 import Dexie from 'dexie';
 import { v7 } from 'uuid';
-import { BenchDb, SCHEMA_V1, SCHEMA_V2 } from './bench-db';
+import { planPour } from '@benchtide/shared';
+import { BenchDb, SCHEMA_V1, SCHEMA_V2, SCHEMA_V3 } from './bench-db';
 import type { LocalBuild, OutboxRow } from './synced-records';
 import { dropDatabase } from './sync-testing';
 
@@ -97,7 +98,7 @@ describe('BenchDb', () => {
 
       const upgraded = await db.outbox.get(seq as number);
 
-      expect(db.verno).toBe(3);
+      expect(db.verno).toBe(4);
       expect(upgraded).toEqual({ ...v1Row, seq: seq as number, state: 'waiting', undo: [] });
       expect(await db.outbox.where('[workshopId+state]').equals([WORKSHOP, 'waiting']).count()).toBe(1);
     });
@@ -137,12 +138,83 @@ describe('BenchDb', () => {
         createdAt: NOW,
       });
 
-      expect(db.verno).toBe(3);
+      expect(db.verno).toBe(4);
       expect(await db.builds.get(id)).toEqual(build(id));
       expect((await db.outbox.get(seq))?.state).toBe('waiting');
       const [upload] = await db.photoUploads.where('[workshopId+state]').equals([WORKSHOP, 'waiting']).toArray();
       expect(new Uint8Array(await upload!.blob.arrayBuffer())).toEqual(bytes);
       expect(await db.photos.where('buildId').equals(id).count()).toBe(0);
+    });
+  });
+
+  describe('upgrading from version 3', () => {
+    // An invented data sheet: 1:1 by weight, 1 g/mL, at most 2 mm a layer. 100 × 50 × 4 mm is 20 mL in two
+    // layers of 2 mm, 10 mL a layer: 5 g of each part (worked by hand, 1 mL = 1000 mm³).
+    it('should give each pour held its layer 1, under the pour’s id, and its planned layer count', async () => {
+      const planned = planPour({
+        shape: { kind: 'rectangle', lengthMm: 100, widthMm: 50 },
+        depthMm: 4,
+        roomTempC: 18,
+        startAtMs: Date.parse(NOW),
+        scaleResolutionG: 0.1,
+        material: {
+          mixRatio: { basis: 'weight', partA: 1, partB: 1 },
+          densityAGPerMl: 1,
+          densityBGPerMl: 1,
+          potLifeMin: 30,
+          recoatMin: 240,
+          demouldMin: 720,
+          fullCureMin: 1440,
+          referenceTempC: 20,
+          minCureTempC: 15,
+          maxLayerMm: 2,
+        },
+      });
+      if (!planned.ok) throw new Error('The spec pour must plan');
+      const { request, ...plan } = planned.plan;
+      const old = new Dexie(name);
+      old.version(3).stores(SCHEMA_V3);
+      const pourId = v7();
+      const {
+        pending: _pending,
+        name: _name,
+        scaleRatio: _ratio,
+        status: _status,
+        notes: _notes,
+        ...fields
+      } = build(pourId);
+      await old.table('pours').add({
+        ...fields,
+        buildId: v7(),
+        stepId: null,
+        materialId: v7(),
+        startAt: NOW,
+        request,
+        plan,
+        shortfall: [],
+        note: 'Mill pond',
+      });
+      const waiting = v7();
+      await old.table('pours').add({ ...fields, id: waiting, request: null, plan: null, startAt: NOW, note: '' });
+      old.close();
+
+      const [layer] = await db.pourLayers.where('pourId').equals(pourId).toArray();
+      expect(layer).toEqual(
+        jasmine.objectContaining({
+          id: pourId,
+          number: 1,
+          pouredAt: NOW,
+          roomTempC: 18,
+          depthMm: 2,
+          partAG: 5,
+          partBG: 5,
+        }),
+      );
+      expect((await db.pours.get(pourId))?.layerCount).toBe(2);
+      expect((await db.pours.get(pourId))?.note).toBe('Mill pond');
+      // One still waiting for its plan gets its layer 1 from the server with the plan.
+      expect(await db.pourLayers.where('pourId').equals(waiting).count()).toBe(0);
+      expect(await db.pours.get(waiting)).toBeDefined();
     });
   });
 });

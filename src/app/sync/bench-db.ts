@@ -1,4 +1,5 @@
 import { inject, Injectable, InjectionToken } from '@angular/core';
+import { firstLayer } from '@benchtide/shared';
 import Dexie, { type EntityTable, type Table } from 'dexie';
 import {
   SYNCED_TABLES,
@@ -8,6 +9,7 @@ import {
   type LocalMaterial,
   type LocalPhoto,
   type LocalPour,
+  type LocalPourLayer,
   type LocalStep,
   type OutboxRow,
   type PhotoUploadRow,
@@ -39,11 +41,16 @@ export const SCHEMA_V2 = {
   outbox: '++seq, workshopId, state, [workshopId+state], &mutationId',
 };
 
-const SCHEMA_V3 = {
+export const SCHEMA_V3 = {
   ...SCHEMA_V2,
   photos: 'id, workshopId, buildId, stepId, pourId, changeNumber',
   // Sent oldest first, one workshop at a time.
   photoUploads: 'id, workshopId, state, [workshopId+state], createdAt',
+};
+
+const SCHEMA_V4 = {
+  ...SCHEMA_V3,
+  pourLayers: 'id, workshopId, pourId, changeNumber',
 };
 
 /**
@@ -58,6 +65,7 @@ export class BenchDb extends Dexie {
   declare readonly containers: EntityTable<LocalContainer, 'id'>;
   declare readonly ledgerEntries: EntityTable<LocalLedgerEntry, 'id'>;
   declare readonly pours: EntityTable<LocalPour, 'id'>;
+  declare readonly pourLayers: EntityTable<LocalPourLayer, 'id'>;
   declare readonly photos: EntityTable<LocalPhoto, 'id'>;
   declare readonly photoUploads: EntityTable<PhotoUploadRow, 'id'>;
   declare readonly outbox: EntityTable<OutboxRow, 'seq'>;
@@ -80,6 +88,31 @@ export class BenchDb extends Dexie {
       );
     // New tables only: nothing stored before changes.
     this.version(3).stores(SCHEMA_V3);
+    // Layers became records: each pour held here gets its layer 1, as the server's migration made it.
+    this.version(4)
+      .stores(SCHEMA_V4)
+      .upgrade(async (tx) => {
+        const pours = tx.table<LocalPour & { layerCount?: number }, string>('pours');
+        const layers = tx.table<LocalPourLayer, string>('pourLayers');
+        for (const pour of await pours.toArray()) {
+          // A pour logged by an older version may still wait for its plan: the server's layer 1 comes with it.
+          if (!pour.plan || !pour.request) continue;
+          await pours.update(pour.id, { layerCount: pour.layerCount ?? pour.plan.layers.count });
+          const { id, workshopId, createdAt, updatedAt, deletedAt, changeNumber } = pour;
+          const first = firstLayer(pour.plan, pour.startAt, pour.request.roomTempC);
+          await layers.put({
+            id,
+            workshopId,
+            createdAt,
+            updatedAt,
+            deletedAt,
+            changeNumber,
+            pourId: id,
+            ...first,
+            recordedBy: pour.loggedBy ?? null,
+          });
+        }
+      });
   }
 
   /** The tables of synced records, for transactions and loops over all of them. */

@@ -11,8 +11,10 @@ const PAGE_SIZE = 1000;
  * Brings a workshop's records up to date from the server, page by page from where the last pull stopped.
  * The server's copy of a record replaces this device's, even one with changes still queued here: those
  * are sent again on the next push and come back with the pull after it. A pour logged here drew stock
- * under ids of this device's making; the server's uses of it have their own, so when the server's pour
- * arrives the provisional uses go, and the stock here is the server's sum again. A photo uploaded from here
+ * under ids of this device's making (again each time a layer was recorded here); the server's uses of it
+ * have their own, so when the server's pour, one of its layers or one of its uses arrives the provisional
+ * uses go, and the stock here is the server's sum again. Layer 1 shares its pour's id on both sides, so the
+ * server's copy replaces the one written here with the pour. A photo uploaded from here
  * is shown from the server's copies once its record arrives, so the bytes kept for the upload go then.
  */
 @Injectable({ providedIn: 'root' })
@@ -52,7 +54,14 @@ export class ChangePull {
     }
     const idsIn = (name: SyncedTableName) =>
       [...latest.values()].filter(([table]) => table === name).map(([, record]) => record.id);
-    const pourIds = idsIn('pours');
+    // The server draws a pour's stock again as its layers go on: its copy of any of these replaces the draw made here.
+    const pourIds = [
+      ...idsIn('pours'),
+      ...[...latest.values()]
+        .filter(([table]) => table === 'pourLayers' || table === 'ledgerEntries')
+        .map(([, record]) => (record as { pourId?: string | null }).pourId)
+        .filter((pourId) => typeof pourId === 'string'),
+    ];
     const { db } = this;
     await db.transaction('rw', [...db.syncedTables, db.syncState, db.photoUploads], async () => {
       await db.ledgerEntries

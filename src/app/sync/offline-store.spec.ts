@@ -4,7 +4,7 @@ import { planPour, remainingByContainer, type NewContainer, type NewPour } from 
 import { v7 } from 'uuid';
 import { BENCH_DB_NAME, BenchDb } from './bench-db';
 import { LocalRecords } from './local-records';
-import { OfflineStore, PourPlanError, StockShortError } from './offline-store';
+import { LayerRefusedError, OfflineStore, PourPlanError, StockShortError } from './offline-store';
 import { insertRecords } from './record-writes';
 import { dropDatabase, serverBuild, TEST_DATA_SHEET, until } from './sync-testing';
 
@@ -214,7 +214,7 @@ describe('OfflineStore', () => {
       });
       if (!planned.ok) throw new Error('The spec pour cannot be planned');
       const { request, ...plan } = planned.plan;
-      await db.pours.put({ ...pour, request, plan, shortfall: [] });
+      await db.pours.put({ ...pour, request, plan, shortfall: [], layerCount: plan.layers.count });
 
       await store.remove('pour', WORKSHOP, pourId);
 
@@ -288,6 +288,21 @@ describe('OfflineStore', () => {
         expect(use.id).not.toBe(use.containerId);
       }
       expect(await stock()).toEqual({ [partA]: 490.1, [partB]: 490.1 });
+      expect(pour?.layerCount).toBe(1);
+      // Layer 1 goes on at the start, under the pour's own id, to the plan's amounts.
+      expect(await db.pourLayers.get(id)).toEqual(
+        jasmine.objectContaining({
+          pourId: id,
+          number: 1,
+          pouredAt: '2025-03-01T10:00:00.000Z',
+          roomTempC: 20,
+          depthMm: 4,
+          partAG: 9.9,
+          partBG: 9.9,
+          weighedAG: null,
+          pending: true,
+        }),
+      );
       const rows = await db.outbox.toArray();
       expect(rows.length).toBe(queued + 1);
       const row = rows.at(-1);
@@ -298,6 +313,7 @@ describe('OfflineStore', () => {
       expect(row?.undo).toEqual(
         jasmine.arrayWithExactContents([
           { table: 'pours', id, restore: null },
+          { table: 'pourLayers', id, restore: null },
           ...uses.map((use) => ({ table: 'ledgerEntries', id: use.id, restore: null })),
         ]),
       );
@@ -409,7 +425,274 @@ describe('OfflineStore', () => {
       await store.remove('pour', WORKSHOP, id);
 
       expect((await db.pours.get(id))?.deletedAt).not.toBeNull();
+      expect((await db.pourLayers.get(id))?.deletedAt).not.toBeNull();
       expect((await stock())[partA]).toBe(500);
+    });
+
+    it('should keep the layer count chosen when the pour was logged', async () => {
+      await addContainer({ part: 'A' });
+      await addContainer({ part: 'B' });
+
+      const id = await logPour({ layerCount: 2 });
+
+      expect((await db.pours.get(id))?.layerCount).toBe(2);
+      // 4 mm in 2 layers: 2 mm, 10 mL, 4.95 g a part, rounded up to the 0.1 g scale (worked by hand).
+      expect(await db.pourLayers.get(id)).toEqual(jasmine.objectContaining({ depthMm: 2, partAG: 5 }));
+    });
+  });
+
+  /**
+   * Worked by hand for the layer specs: 100 × 50 × 12 mm in 3 layers of 4 mm, 20 mL each, 9.9 g of each part
+   * a layer (see TEST_DATA_SHEET), 29.7 g a part in all. Recoat from 240 min at 20 °C: layer 2 from 14:00.
+   */
+  describe('following a pour through its layers', () => {
+    let partA: string;
+    let partB: string;
+    let pourId: string;
+
+    const layer2 = (fields: Partial<Parameters<OfflineStore['recordLayer']>[1]> = {}) =>
+      store.recordLayer(WORKSHOP, {
+        pourId,
+        number: 2,
+        pouredAt: '2025-03-01T14:30:00.000Z',
+        roomTempC: 20,
+        ...fields,
+      });
+
+    async function stockOf(containerId: string): Promise<number> {
+      const entries = (await db.ledgerEntries.toArray()).filter((entry) => entry.deletedAt === null);
+      return remainingByContainer(entries.map((entry) => ({ ...entry, atMs: Date.parse(entry.at) })))[containerId] ?? 0;
+    }
+    async function costOfPour(): Promise<number> {
+      const uses = await db.ledgerEntries
+        .where({ pourId })
+        .filter((entry) => entry.deletedAt === null)
+        .toArray();
+      return uses.reduce((sum, use) => sum + use.costMinor, 0);
+    }
+    async function expectRefused(attempt: () => Promise<unknown>, field: string, words: string): Promise<void> {
+      const before = [await db.pourLayers.count(), await db.ledgerEntries.count(), await db.outbox.count()];
+      const error = await attempt().then(
+        () => null,
+        (caught: unknown) => caught,
+      );
+      expect(error).toEqual(jasmine.any(LayerRefusedError));
+      expect((error as LayerRefusedError).field).toBe(field);
+      expect((error as LayerRefusedError).message).toContain(words);
+      expect([await db.pourLayers.count(), await db.ledgerEntries.count(), await db.outbox.count()]).toEqual(before);
+    }
+    const lastChange = async () => (await db.outbox.toArray()).at(-1)?.mutation;
+
+    beforeEach(async () => {
+      const materialId = await store.create('material', WORKSHOP, {
+        name: 'Test resin',
+        kind: 'two-part-epoxy',
+        dataSheet: TEST_DATA_SHEET,
+      });
+      const container = (part: 'A' | 'B', priceMinor: number) =>
+        store.create('container', WORKSHOP, {
+          materialId,
+          part,
+          sizeQty: 500,
+          unit: 'g',
+          priceMinor,
+          currency: 'EUR',
+          boughtOn: '2025-02-10',
+        });
+      partA = await container('A', 2500);
+      partB = await container('B', 2000);
+      pourId = await store.logPour(WORKSHOP, { ...POUR, materialId, depthMm: 12, layerCount: 3 });
+    });
+
+    describe('recording a layer', () => {
+      it('should store the layer with the plan for it, draw what was weighed and queue it', async () => {
+        const id = await layer2({ weighedAG: 10.2, weighedBG: 10, note: 'Blue tint' });
+
+        expect(await db.pourLayers.get(id)).toEqual(
+          jasmine.objectContaining({
+            pourId,
+            number: 2,
+            pouredAt: '2025-03-01T14:30:00.000Z',
+            depthMm: 4,
+            partAG: 9.9,
+            partBG: 9.9,
+            weighedAG: 10.2,
+            weighedBG: 10,
+            note: 'Blue tint',
+            pending: true,
+          }),
+        );
+        // Part A: 9.9 + 10.2 + 9.9 = 30.0 g of 500; part B: 9.9 + 10.0 + 9.9 = 29.8 g.
+        expect(await stockOf(partA)).toBe(470);
+        expect(await stockOf(partB)).toBe(470.2);
+        // 30.0 g × 2500 / 500 = 150 cents; 29.8 g × 2000 / 500 = 119.2 → 119 cents.
+        expect(await costOfPour()).toBe(269);
+        expect(await lastChange()).toEqual(
+          jasmine.objectContaining({ type: 'pourLayer.create', data: jasmine.objectContaining({ id, number: 2 }) }),
+        );
+      });
+
+      it('should draw the plan again when nothing was weighed, so the stock stays as logged', async () => {
+        await layer2();
+
+        expect(await stockOf(partA)).toBe(470.3);
+        expect(
+          (await db.ledgerEntries.where({ pourId }).toArray()).filter((use) => use.deletedAt === null).length,
+        ).toBe(2);
+      });
+
+      it('should put the first draw back when the server refuses the layer', async () => {
+        await layer2({ weighedAG: 10.2, weighedBG: 10 });
+        const row = (await db.outbox.toArray()).at(-1)!;
+        await db.outbox.update(row.seq, { state: 'rejected' });
+
+        await store.discard(row.seq);
+
+        expect(await stockOf(partA)).toBe(470.3);
+        expect((await db.pourLayers.where({ pourId }).toArray()).map((layer) => layer.number)).toEqual([1]);
+      });
+
+      it('should refuse a layer out of order, saying which comes first', async () => {
+        await expectRefused(() => layer2({ number: 3 }), 'number', 'Layer 2 comes before layer 3.');
+      });
+
+      it('should refuse a layer already poured', async () => {
+        await layer2();
+
+        await expectRefused(() => layer2(), 'number', 'Layer 2 was already recorded as poured');
+      });
+
+      it('should refuse a layer before the layer below it', async () => {
+        await expectRefused(
+          () => layer2({ pouredAt: '2025-03-01T09:00:00.000Z' }),
+          'pouredAt',
+          'Layer 2 cannot go on before layer 1',
+        );
+      });
+
+      it('should refuse a time more than an hour ahead of now', async () => {
+        const later = new Date(Date.now() + 2 * 3_600_000).toISOString();
+
+        await expectRefused(() => layer2({ pouredAt: later }), 'pouredAt', 'more than an hour from now');
+      });
+
+      it('should refuse a weighed amount of 0 g, naming the part', async () => {
+        await expectRefused(() => layer2({ weighedAG: 0, weighedBG: 10 }), 'weighedAG', 'part A must be more than 0 g');
+      });
+
+      it('should refuse one part weighed without the other', async () => {
+        await expectRefused(() => layer2({ weighedAG: 10 }), 'weighedBG', 'both parts, or of neither');
+      });
+    });
+
+    describe('correcting a layer', () => {
+      let id: string;
+
+      beforeEach(async () => {
+        id = await layer2({ weighedAG: 10.2, weighedBG: 10 });
+      });
+
+      it('should change the amounts weighed, draw again and queue the correction', async () => {
+        await store.correctLayer(WORKSHOP, id, { weighedAG: 9.9, weighedBG: 9.9 });
+
+        expect(await db.pourLayers.get(id)).toEqual(jasmine.objectContaining({ weighedAG: 9.9, weighedBG: 9.9 }));
+        expect(await stockOf(partA)).toBe(470.3);
+        expect(await stockOf(partB)).toBe(470.3);
+        expect(await lastChange()).toEqual(
+          jasmine.objectContaining({ type: 'pourLayer.patch', recordId: id, data: { weighedAG: 9.9, weighedBG: 9.9 } }),
+        );
+      });
+
+      it('should move a layer’s time within the layers around it', async () => {
+        await store.correctLayer(WORKSHOP, id, { pouredAt: '2025-03-01T15:05:00.000Z', roomTempC: 18 });
+
+        expect(await db.pourLayers.get(id)).toEqual(
+          jasmine.objectContaining({ pouredAt: '2025-03-01T15:05:00.000Z', roomTempC: 18 }),
+        );
+      });
+
+      it('should refuse a time before the layer below', async () => {
+        await expectRefused(
+          () => store.correctLayer(WORKSHOP, id, { pouredAt: '2025-03-01T09:59:00.000Z' }),
+          'pouredAt',
+          'Layer 2 cannot go on before layer 1',
+        );
+      });
+
+      it('should refuse a time after the layer above', async () => {
+        await expectRefused(
+          () => store.correctLayer(WORKSHOP, pourId, { pouredAt: '2025-03-01T14:31:00.000Z' }),
+          'pouredAt',
+          'Layer 1 cannot go on after layer 2',
+        );
+      });
+
+      it('should refuse a weighed amount of 0 g', async () => {
+        await expectRefused(
+          () => store.correctLayer(WORKSHOP, id, { weighedBG: 0 }),
+          'weighedBG',
+          'part B must be more than 0 g',
+        );
+      });
+    });
+
+    describe('taking back a layer', () => {
+      it('should take back the top layer and the stock it drew', async () => {
+        const id = await layer2({ weighedAG: 10.2, weighedBG: 10 });
+
+        await store.takeBackLayer(WORKSHOP, id);
+
+        expect((await db.pourLayers.get(id))?.deletedAt).not.toBeNull();
+        expect(await stockOf(partA)).toBe(470.3);
+        expect(await lastChange()).toEqual({ type: 'pourLayer.delete', mutationId: jasmine.any(String), recordId: id });
+      });
+
+      it('should refuse layer 1, which goes with its pour', async () => {
+        await expectRefused(() => store.takeBackLayer(WORKSHOP, pourId), 'number', 'delete the pour');
+      });
+
+      it('should refuse a layer with another on top of it', async () => {
+        const id = await layer2();
+        await store.recordLayer(WORKSHOP, { pourId, number: 3, pouredAt: '2025-03-01T19:00:00.000Z', roomTempC: 20 });
+
+        await expectRefused(() => store.takeBackLayer(WORKSHOP, id), 'number', 'take back layer 3 first');
+      });
+    });
+
+    describe('re-planning the layers', () => {
+      it('should split the depth left again and draw what it now needs', async () => {
+        await store.replanPour(WORKSHOP, pourId, 5);
+
+        expect((await db.pours.get(pourId))?.layerCount).toBe(5);
+        // 8 mm left in 4 layers of 2 mm: 10 mL, 4.95 g a part, rounded up to the 0.1 g scale = 5.0 g;
+        // 9.9 + 4 × 5.0 = 29.9 g of each part.
+        expect(await stockOf(partA)).toBe(470.1);
+        expect(await lastChange()).toEqual(
+          jasmine.objectContaining({ type: 'pour.patch', recordId: pourId, data: { layerCount: 5 } }),
+        );
+      });
+
+      it('should refuse a count that leaves depth with no layer to pour it', async () => {
+        await expectRefused(() => store.replanPour(WORKSHOP, pourId, 1), 'layerCount', 'keep at least one more layer');
+      });
+
+      it('should refuse more layers than a pour can have', async () => {
+        await expectRefused(() => store.replanPour(WORKSHOP, pourId, 51), 'layerCount', 'at most 50 layers');
+      });
+    });
+
+    describe('deleting the pour', () => {
+      it('should take its layers, its stock and its cost back at once', async () => {
+        const id = await layer2({ weighedAG: 10.2, weighedBG: 10 });
+
+        await store.remove('pour', WORKSHOP, pourId);
+
+        expect((await db.pourLayers.get(id))?.deletedAt).not.toBeNull();
+        expect((await db.pourLayers.get(pourId))?.deletedAt).not.toBeNull();
+        expect(await stockOf(partA)).toBe(500);
+        expect(await stockOf(partB)).toBe(500);
+        expect(await costOfPour()).toBe(0);
+      });
     });
   });
 });

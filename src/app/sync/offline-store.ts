@@ -5,6 +5,10 @@ import {
   costOfUseMinor,
   DEVICE_TABLE_OF,
   drawForPour,
+  firstLayer,
+  layerCountProblem,
+  layerProblem,
+  pouredLayerOf,
   stockShortMessage,
   stocktakeAdjustment,
   type ChangeData,
@@ -13,17 +17,29 @@ import {
   type Mutation,
   type NewContainer,
   type NewPour,
+  type PourLayerPatch,
+  type PourPlan,
   type PourShortfall,
-  type ShelfContainer,
 } from '@benchtide/shared';
 import { Subject } from 'rxjs';
 import { v7 } from 'uuid';
 import type * as z from 'zod';
 import { BenchDb } from './bench-db';
-import { remainingOnDevice } from './device-stock';
+import { remainingOnDevice, shelfOnDevice } from './device-stock';
 import { discardChange } from './discard-change';
+import { followLocalPour, layersOfPours } from './followed-pour';
+import {
+  correctionProblem,
+  LayerRefusedError,
+  layerOnDevice,
+  localMoment,
+  pourOnDevice,
+  redrawPour,
+  refuseHalfWeighed,
+  refuseZeroWeighed,
+} from './pour-layer-writes';
 import { insertRecords, ledgerEntry, patchRecord, softDelete, type NewFields } from './record-writes';
-import type { RecordUndo, SyncedTableName } from './synced-records';
+import type { LocalPourLayer, RecordUndo, SyncedTableName } from './synced-records';
 import { writeChecks } from './write-checks';
 
 /** A new record as a form gives it: the id is made here unless the caller made it already. */
@@ -32,8 +48,8 @@ type Input<T extends z.ZodType> = z.input<T>;
 
 const MATERIAL_NOT_HERE =
   'The material of this pour is not on this device. Sync this workshop, then log the pour again; nothing was saved.';
-const CONTAINER_NOT_HERE =
-  'A container chosen for this pour is not on this device’s shelf for that material. Choose again; nothing was saved.';
+
+export { LayerRefusedError } from './pour-layer-writes';
 
 /** The shelf holds less than a pour needs and the modeller asked to refuse it: nothing was saved. */
 export class StockShortError extends Error {
@@ -180,43 +196,145 @@ export class OfflineStore {
       if (material?.workshopId !== workshopId || material.deletedAt !== null) throw new Error(MATERIAL_NOT_HERE);
       const planned = planPour({ ...data, material: material.dataSheet, startAtMs: Date.parse(startAt) });
       if (!planned.ok) throw new PourPlanError(planned.errors);
-      const { uses, shortfall } = drawForPour(planned.plan, await this.shelfOf(workshopId, data), containerIds);
+      const shelf = await shelfOnDevice(this.db, workshopId, data);
+      const { uses, shortfall } = drawForPour(planned.plan, shelf, containerIds);
       if (shortfall.length > 0 && data.whenShort === 'refuse') {
         throw new StockShortError(stockShortMessage(planned.plan, shortfall), shortfall);
       }
       const { request, ...plan } = planned.plan;
+      const layerCount = data.layerCount ?? plan.layers.count;
       const pour = { id, buildId, stepId: data.stepId ?? null, materialId, startAt, request, plan, shortfall, note };
       const at = new Date(startAt).toISOString();
+      const layer = { id, pourId: id, ...firstLayer(plan, at, data.roomTempC) };
       const drawn = uses.map(({ containerId, quantity, costMinor }) => {
         const more = { id: v7(), costMinor, pourId: id, at };
         return ['ledgerEntries', ledgerEntry(containerId, 'pour-use', -quantity, more)] as const;
       });
-      return insertRecords(this.db, workshopId, now, [['pours', pour], ...drawn]);
+      return insertRecords(this.db, workshopId, now, [
+        ['pours', { ...pour, layerCount }],
+        ['pourLayers', layer],
+        ...drawn,
+      ]);
     });
     return id;
   }
+
+  /**
+   * The next layer of a pour, recorded as poured: checked against the layers on this device (the next one,
+   * not before the layer below, not over an hour ahead), with the plan for it as it stands, and the pour's
+   * stock drawn again for what it now needs. Throws LayerRefusedError, saving nothing, when refused.
+   */
+  async recordLayer(
+    workshopId: string,
+    draft: {
+      id?: string;
+      pourId: string;
+      number: number;
+      pouredAt: string;
+      roomTempC: number;
+      weighedAG?: number;
+      weighedBG?: number;
+      note?: string;
+    },
+  ): Promise<string> {
+    const { checkChangeData } = await writeChecks();
+    refuseZeroWeighed(draft);
+    const data = checkChangeData('pourLayer', 'create', withId(draft));
+    const mutation = { type: changeType('pourLayer', 'create'), mutationId: v7(), data } as const;
+    await this.apply(workshopId, mutation, async (now) => {
+      const pour = await pourOnDevice(this.db, workshopId, data.pourId);
+      const layers = await this.layersOf(pour.id);
+      const nowMs = Date.now();
+      const followed = followLocalPour(pour, layers, nowMs);
+      const candidate = { number: data.number, pouredAtMs: Date.parse(data.pouredAt) };
+      const problem = layerProblem(followed, candidate, nowMs, (ms) => localMoment(ms, nowMs));
+      if (problem) throw new LayerRefusedError(problem.field, problem.message);
+      const weighed = { weighedAG: data.weighedAG ?? null, weighedBG: data.weighedBG ?? null };
+      refuseHalfWeighed(pour, weighed);
+      const { depthMm, partAG, partBG } = followed.next!.planned;
+      const { id, pourId, number, pouredAt, roomTempC, note } = data;
+      const layer = { id, pourId, number, pouredAt, roomTempC, depthMm, partAG, partBG, ...weighed, note };
+      const undo = await insertRecords(this.db, workshopId, now, [['pourLayers', layer]]);
+      const { needG } = followLocalPour(pour, [...layers, layer as LocalPourLayer]);
+      return [...undo, ...(await redrawPour(this.db, workshopId, pour, needG, now))];
+    });
+    return data.id;
+  }
+
+  /** A poured layer's time, room or weighed amounts corrected, kept in order with the layers around it. */
+  async correctLayer(workshopId: string, layerId: string, patch: PourLayerPatch): Promise<void> {
+    const { checkChangeData } = await writeChecks();
+    refuseZeroWeighed(patch);
+    const data = checkChangeData('pourLayer', 'patch', patch);
+    const mutation = { type: changeType('pourLayer', 'patch'), mutationId: v7(), recordId: layerId, data } as const;
+    await this.apply(workshopId, mutation, async (now) => {
+      const layer = await layerOnDevice(this.db, workshopId, layerId);
+      const pour = await pourOnDevice(this.db, workshopId, layer.pourId);
+      const layers = await this.layersOf(pour.id);
+      const problem = correctionProblem(layers, layer, data, Date.now());
+      if (problem) throw new LayerRefusedError('pouredAt', problem);
+      const corrected = { ...layer, ...data };
+      refuseHalfWeighed(pour, { weighedAG: corrected.weighedAG ?? null, weighedBG: corrected.weighedBG ?? null });
+      const undo = await patchRecord(this.db, 'pourLayers', layerId, data, now);
+      if (data.weighedAG === undefined && data.weighedBG === undefined) return undo;
+      const { needG } = followLocalPour(
+        pour,
+        layers.map((other) => (other.id === layerId ? corrected : other)),
+      );
+      return [...undo, ...(await redrawPour(this.db, workshopId, pour, needG, now))];
+    });
+  }
+
+  /** Takes back a layer recorded by mistake: only the top one, never layer 1 (delete the pour for that). */
+  async takeBackLayer(workshopId: string, layerId: string): Promise<void> {
+    const mutation = { type: changeType('pourLayer', 'delete'), mutationId: v7(), recordId: layerId } as const;
+    await this.apply(workshopId, mutation, async (now) => {
+      const layer = await layerOnDevice(this.db, workshopId, layerId);
+      if (layer.number === 1) {
+        throw new LayerRefusedError('number', 'Layer 1 goes with its pour: delete the pour to take it back.');
+      }
+      const pour = await pourOnDevice(this.db, workshopId, layer.pourId);
+      const layers = await this.layersOf(pour.id);
+      const top = layers.at(-1)!;
+      if (top.id !== layerId) {
+        throw new LayerRefusedError(
+          'number',
+          `Only the top layer can be taken back: take back layer ${top.number} first.`,
+        );
+      }
+      const undo = await softDelete(this.db, 'pourLayers', layerId, now);
+      const { needG } = followLocalPour(pour, layers.slice(0, -1));
+      return [...undo, ...(await redrawPour(this.db, workshopId, pour, needG, now))];
+    });
+  }
+
+  /** The number of layers now planned (add, skip, re-split the depth left), with the stock drawn again. */
+  async replanPour(workshopId: string, pourId: string, layerCount: number): Promise<void> {
+    const refuseCount = async (): Promise<void> => {
+      const pour = await pourOnDevice(this.db, workshopId, pourId);
+      const poured = (await this.layersOf(pourId)).map(pouredLayerOf);
+      const problem = layerCountProblem({ ...pour.plan, request: pour.request } as PourPlan, layerCount, poured);
+      if (problem) throw new LayerRefusedError('layerCount', problem);
+    };
+    await refuseCount();
+    const data = (await writeChecks()).checkChangeData('pour', 'patch', { layerCount });
+    const mutation = { type: changeType('pour', 'patch'), mutationId: v7(), recordId: pourId, data } as const;
+    await this.apply(workshopId, mutation, async (now) => {
+      await refuseCount();
+      const pour = await pourOnDevice(this.db, workshopId, pourId);
+      const undo = await patchRecord(this.db, 'pours', pourId, { layerCount }, now);
+      const { needG } = followLocalPour({ ...pour, layerCount }, await this.layersOf(pourId));
+      return [...undo, ...(await redrawPour(this.db, workshopId, { ...pour, layerCount }, needG, now))];
+    });
+  }
+
   /** Throws a rejected change away and puts back what it changed on this device, where nothing newer did. */
   discard(seq: number): Promise<void> {
     return discardChange(this.db, seq);
   }
 
-  /** The material's live containers on this device, each with what its stock book here says is left. */
-  private async shelfOf(
-    workshopId: string,
-    pour: { materialId: string; containerIds?: readonly string[] },
-  ): Promise<ShelfContainer[]> {
-    const containers = await this.db.containers
-      .where({ materialId: pour.materialId })
-      .filter((container) => container.workshopId === workshopId && container.deletedAt === null)
-      .toArray();
-    if (pour.containerIds?.some((id) => !containers.some((container) => container.id === id))) {
-      throw new Error(CONTAINER_NOT_HERE);
-    }
-    const sums = await remainingOnDevice(
-      this.db,
-      containers.map((container) => container.id),
-    );
-    return containers.map((container) => ({ ...container, remainingQty: sums[container.id] ?? 0 }));
+  private async layersOf(pourId: string): Promise<LocalPourLayer[]> {
+    return (await layersOfPours(this.db, [pourId])).get(pourId) ?? [];
   }
 }
 

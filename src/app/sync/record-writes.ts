@@ -37,7 +37,10 @@ export async function patchRecord(
   return [{ table, id, restore }];
 }
 
-/** A soft delete: the record stays, marked, until the server's tombstone arrives. A pour takes the stock it drew with it. */
+/**
+ * A soft delete: the record stays, marked, until the server's tombstone arrives. A pour takes its layers and
+ * the stock it drew with it, so the shelf and the build's cost go back at once.
+ */
 export async function softDelete(
   db: BenchDb,
   table: SyncedTableName,
@@ -48,6 +51,8 @@ export async function softDelete(
   if (table === 'pours') {
     const uses = db.ledgerEntries.where({ pourId: id }).filter((use) => use.deletedAt === null);
     for (const useId of await uses.primaryKeys()) targets.push(['ledgerEntries', useId]);
+    const layers = db.pourLayers.where({ pourId: id }).filter((layer) => layer.deletedAt === null);
+    for (const layerId of await layers.primaryKeys()) targets.push(['pourLayers', layerId]);
   }
   const undo: RecordUndo[] = [];
   for (const [name, targetId] of targets) {

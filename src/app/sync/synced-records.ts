@@ -61,7 +61,25 @@ export interface LocalPour extends SyncedFields {
   plan: Omit<PourPlan, 'request'>;
   shortfall: PourShortfall[];
   note: string;
+  /** The layers now planned: the plan's own until a layer is added, skipped or the rest re-split. */
+  layerCount: number;
   loggedBy?: string | null;
+}
+
+/** A layer as really poured (shared/pour-layers.ts); layer 1 shares its pour's id. */
+export interface LocalPourLayer extends SyncedFields {
+  pourId: string;
+  number: number;
+  pouredAt: string;
+  roomTempC: number;
+  /** The plan for this layer when it went on. */
+  depthMm: number;
+  partAG: number;
+  partBG: number;
+  weighedAG: number | null;
+  weighedBG: number | null;
+  note: string;
+  recordedBy?: string | null;
 }
 
 /** A bench photo: the server's record, or this device's own while its upload waits (then `pending`, with no size yet). */

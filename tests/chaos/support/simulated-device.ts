@@ -6,10 +6,14 @@ import { pourBody } from '../../support/shelf.js';
 export interface ExpectedRecords {
   builds: Map<string, { name: string; notes: string }>;
   steps: Map<string, { buildId: string; title: string; deleted: boolean }>;
-  pours: Map<string, { buildId: string; deleted: boolean }>;
+  /** `layered`: layer 2 recorded as poured, weighed at LAYER_2_WEIGHED_G of each part. */
+  pours: Map<string, { buildId: string; deleted: boolean; layered: boolean }>;
   /** Waste entries by id: container and quantity in thousandths of a gram. */
   wastes: Map<string, { containerId: string; thousandths: number }>;
 }
+
+/** What every device weighs of each part for layer 2 of its two-layer pours. */
+export const LAYER_2_WEIGHED_G = 12.3;
 
 export interface DeviceSetup {
   name: string;
@@ -51,6 +55,7 @@ export class SimulatedDevice {
     const liveBuilds = [...this.expected.builds.keys()];
     const liveSteps = [...this.expected.steps].filter(([, step]) => !step.deleted).map(([id]) => id);
     const livePours = [...this.expected.pours].filter(([, pour]) => !pour.deleted).map(([id]) => id);
+    const unlayered = [...this.expected.pours].filter(([, pour]) => !pour.deleted && !pour.layered).map(([id]) => id);
     const n = this.written;
     const { name } = this.setup;
     if (liveBuilds.length === 0 || r < 0.06) {
@@ -79,10 +84,24 @@ export class SimulatedDevice {
       const recordId = this.pick(liveSteps);
       this.expected.steps.get(recordId)!.deleted = true;
       this.queue({ type: 'step.delete', mutationId: v7(), recordId });
+    } else if (r < 0.85 && r >= 0.78 && unlayered.length > 0) {
+      const pourId = this.pick(unlayered);
+      this.expected.pours.get(pourId)!.layered = true;
+      const layer = {
+        id: v7(),
+        pourId,
+        number: 2,
+        pouredAt: new Date().toISOString(),
+        roomTempC: 18,
+        weighedAG: LAYER_2_WEIGHED_G,
+        weighedBG: LAYER_2_WEIGHED_G,
+        note: `${name} tinted layer ${n}`,
+      };
+      this.queue({ type: 'pourLayer.create', mutationId: v7(), data: layer });
     } else if (r < 0.85 || (r < 0.9 && livePours.length === 0)) {
       const buildId = this.pick(liveBuilds);
-      const pour = pourBody(buildId, this.setup.materialId, { startAt: new Date().toISOString() });
-      this.expected.pours.set(pour.id, { buildId, deleted: false });
+      const pour = pourBody(buildId, this.setup.materialId, { startAt: new Date().toISOString(), layerCount: 2 });
+      this.expected.pours.set(pour.id, { buildId, deleted: false, layered: false });
       this.queue({ type: 'pour.create', mutationId: v7(), data: pour as never });
     } else if (r < 0.9) {
       const recordId = this.pick(livePours);
