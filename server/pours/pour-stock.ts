@@ -115,6 +115,18 @@ export async function redrawPour(work: UnitOfWork, pour: PourRow, followed: Foll
     }
     const entries = ledgerEntriesOf(uses, { workshopId, pourId: pour.id, changeNumber, at: pour.startAt });
     if (entries.length > 0) await tx.insert(ledgerEntries).values(entries);
+  } else if (own.length > 0) {
+    // A device that recorded the layer drew again under its own ids and set these aside; stamped with this
+    // change they reach it again with the layer, and stand once more.
+    await tx
+      .update(ledgerEntries)
+      .set({ updatedAt: now, changeNumber })
+      .where(
+        inArray(
+          ledgerEntries.id,
+          own.map((entry) => entry.id),
+        ),
+      );
   }
   const [row] = await tx
     .update(pours)

@@ -113,14 +113,16 @@ describe('following a pour through its layers on a phone', () => {
     // Delete the pour from the build log: the shelf and the build's cost go back.
     await page.goto(`${app.origin}/builds/${buildId}`);
     const entry = page.locator(`[data-entry="pour"][data-pour="${pourId}"]`);
-    await page.locator('[data-field="cost"]').getByText('€').waitFor();
+    await page.waitForFunction(() => document.querySelector('[data-field="cost"]')?.textContent?.includes('€'));
     await entry.locator('[data-action="delete-pour"]').click();
     const confirm = entry.locator('[data-confirm="delete-pour"]');
     await confirm.getByText('The stock it drew goes back to the shelf').waitFor();
     expect(await confirm.textContent()).toContain('leaves the build’s cost');
     await page.screenshot({ path: screenshotPath('delete-pour-390x844') });
     await confirm.getByRole('button', { name: 'Delete the pour' }).click();
-    await page.locator('[data-field="cost"]').getByText('no costed pours yet').waitFor();
+    await page.waitForFunction(
+      () => document.querySelector('[data-field="cost"]')?.textContent?.trim() === 'no costed pours yet',
+    );
     expect(await page.locator(`[data-pour="${pourId}"]`).count()).toBe(0);
 
     await untilSynced(page, app.origin);

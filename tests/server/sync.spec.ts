@@ -191,14 +191,14 @@ describe('sync', () => {
         .filter((change) => change.changeNumber === changeNumber)
         .map((c) => c.entity)
         .sort();
-    // The pour was logged with its layer 1 and its stock uses in one change; recording layer 2 (weighing
-    // nothing, so the same uses) stamped the pour again with it. Each change comes whole.
+    // Recording layer 2 (weighing nothing, so the same uses) stamped the pour and its uses again with the
+    // layer, so a device that drew again under its own ids gets them back; layer 1 stays with the pour's first change.
+    const pourChange = changes.find((change) => change.entity === 'pour')!.changeNumber;
+    expect(entitiesOf(pourChange)).toEqual(['ledgerEntry', 'ledgerEntry', 'pour', 'pourLayer']);
     const usesChange = changes.find(
       (change) => change.entity === 'ledgerEntry' && change.record['pourId'] != null,
     )!.changeNumber;
-    expect(entitiesOf(usesChange)).toEqual(['ledgerEntry', 'ledgerEntry', 'pourLayer']);
-    const pourChange = changes.find((change) => change.entity === 'pour')!.changeNumber;
-    expect(entitiesOf(pourChange)).toEqual(['pour', 'pourLayer']);
+    expect(usesChange).toBe(pourChange);
   });
 
   it('should say when to start over: a cursor from the future, or a workshop that is not yours', async () => {

@@ -80,7 +80,7 @@ describe('PourTimer', () => {
   function moments(): { label: string; time: string; passed: boolean }[] {
     return Array.from((fixture.nativeElement as HTMLElement).querySelectorAll('.moments li')).map((item) => ({
       label: item.querySelector('.label')?.textContent?.trim() ?? '',
-      time: (item.querySelector('time')?.textContent ?? '').replace(/\s+/g, ' ').replace(' ,', ',').trim(),
+      time: (item.querySelector('time')?.textContent ?? '').replace(/\s+/g, ' ').trim(),
       passed: item.classList.contains('passed') && (item.textContent ?? '').includes('(passed)'),
     }));
   }
