@@ -1,9 +1,9 @@
-import { stringify } from 'csv-stringify/sync';
+import { csvTable, type CsvCell } from '../core/csv-table.js';
 import { majorAmount, type CostReport } from './cost-service.js';
 
 /** The cost report as one CSV table: one row per line, grouped by what it sums. */
 export function costReportCsv(report: CostReport): string {
-  const rows: string[][] = [];
+  const rows: CsvCell[][] = [];
   const groups: [string, keyof CostReport][] = [
     ['build', 'byBuild'],
     ['material', 'byMaterial'],
@@ -17,10 +17,10 @@ export function costReportCsv(report: CostReport): string {
         line.key,
         line.label,
         line.currency,
-        String(line.costMinor),
+        line.costMinor,
         majorAmount(line.costMinor, line.currency),
       ]);
     }
   }
-  return stringify(rows, { header: true, columns: ['group', 'key', 'label', 'currency', 'cost_minor', 'cost'] });
+  return csvTable(['group', 'key', 'label', 'currency', 'cost_minor', 'cost'], rows);
 }

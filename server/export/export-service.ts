@@ -1,4 +1,4 @@
-import { stringify } from 'csv-stringify/sync';
+import { csvTable, type CsvCell } from '../core/csv-table.js';
 import { eq } from 'drizzle-orm';
 import { RECORD_KINDS, type ExportTableName } from '../../shared/record-kinds.js';
 import type { ServerContext } from '../context.js';
@@ -50,16 +50,18 @@ export async function exportCsv(ctx: ServerContext, userId: string, workshopId: 
   const columns = Object.keys(EXPORT_TABLES[name as ExportTable]).filter(
     (key) => !key.startsWith('_') && key !== 'enableRLS',
   );
-  const cell = (value: unknown) =>
+  const cell = (value: unknown): CsvCell =>
     value === null || value === undefined
-      ? ''
+      ? null
       : value instanceof Date
         ? value.toISOString()
-        : typeof value === 'object'
-          ? JSON.stringify(value)
-          : String(value);
-  return stringify(
+        : typeof value === 'number'
+          ? value
+          : typeof value === 'object'
+            ? JSON.stringify(value)
+            : String(value);
+  return csvTable(
+    columns,
     rows.map((row) => columns.map((column) => cell((row as Record<string, unknown>)[column]))),
-    { header: true, columns },
   );
 }

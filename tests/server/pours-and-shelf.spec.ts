@@ -237,6 +237,38 @@ describe('costs and exports', () => {
     expect(rows).toContain(jasmine.objectContaining({ group: 'total', currency: 'EUR', cost_minor: '90' }));
   });
 
+  it('should write text a spreadsheet would run as a formula as plain text, and keep numbers numbers', async () => {
+    const server = await testServer();
+    const owner = await makeAccount(server.ctx, 'Vera');
+    const client = api(server, owner, (await makeWorkshop(server.ctx, owner)).id);
+    // OWASP "CSV Injection": cells starting with =, +, -, @, tab or carriage return run as formulas
+    const planted = ['=HYPERLINK("https://example.org/x","open")', '+SUM(1,2)', '@SUM(A1)', '-2+3'];
+    const buildIds: string[] = [];
+    for (const name of planted) buildIds.push(await addBuild(client, { name, notes: `${name}\tmore` }));
+    const materialId = await addMaterial(client, { name: '=1+1' });
+    await addContainer(client, materialId, { part: 'A', priceMinor: 2500 });
+    await addContainer(client, materialId, { part: 'B', priceMinor: 2000 });
+    await client.post('/pours', pourBody(buildIds[0]!, materialId)).expect(201);
+
+    const builds = parse((await client.get('/export/builds.csv').expect(200)).text, { columns: true }) as {
+      name: string;
+    }[];
+    const costs = parse((await client.get('/costs.csv').expect(200)).text, { columns: true }) as Record<
+      string,
+      string
+    >[];
+    const ledger = parse((await client.get('/export/ledger.csv').expect(200)).text, { columns: true }) as {
+      quantity: string;
+    }[];
+
+    expect(builds.map((row) => row.name).sort()).toEqual(planted.map((name) => `'${name}`).sort());
+    expect(costs).toContain(jasmine.objectContaining({ group: 'build', label: `'${planted[0]}`, cost_minor: '90' }));
+    expect(costs).toContain(jasmine.objectContaining({ group: 'material', label: "'=1+1" }));
+    const draws = ledger.map((row) => row.quantity).filter((quantity) => quantity.startsWith('-'));
+    expect(draws.length).toBeGreaterThan(0);
+    for (const quantity of draws) expect(Number(quantity)).toBeLessThan(0);
+  });
+
   it('should export the whole record as JSON and each table as CSV, to owners', async () => {
     const server = await testServer();
     const owner = await makeAccount(server.ctx, 'Tess');

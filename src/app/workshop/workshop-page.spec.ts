@@ -130,7 +130,10 @@ describe('WorkshopPage', () => {
       expect(link('json').getAttribute('download')).toBe('benchtide-river-club-record.json');
       expect(link('ledger').textContent?.trim()).toBe('Stock book');
       expect(link('photos').getAttribute('href')).toBe('/api/workshops/w-river/export/photos.csv');
-      expect(fixture.nativeElement.querySelectorAll('[data-export]').length).toBe(8);
+      expect(link('layers').textContent?.trim()).toBe('Pour layers');
+      // one JSON download and one CSV per synced table: builds, steps, materials, containers, stock book, pours,
+      // pour layers and photo records
+      expect(fixture.nativeElement.querySelectorAll('[data-export]').length).toBe(9);
     });
 
     it('should show the invitations and the invite form', async () => {
