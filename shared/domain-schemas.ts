@@ -133,6 +133,12 @@ export const newPourSchema = z.object({
   roomTempC: z.number({ error: 'Room temperature must be a number' }).min(-30).max(60),
   startAt: instant('Start'),
   scaleResolutionG: positive('Scale resolution', 'g').default(0.1),
+  /** The finest mark on the cup the parts are measured in; the millilitres shown are rounded to it. */
+  cupResolutionMl: z
+    .number({ error: 'Cup resolution must be a number' })
+    .min(0.01, { error: 'Cup resolution must be at least 0.01 mL' })
+    .max(100, { error: 'Cup resolution must be at most 100 mL' })
+    .default(1),
   /** Draw from these containers, in this order; otherwise oldest first. */
   containerIds: z.array(id('Container')).max(20).optional(),
   /** When the shelf holds less than the pour needs: refuse, or record the rest as from a bottle not on the shelf. */

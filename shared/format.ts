@@ -2,7 +2,7 @@
  * Display strings for quantities. Deterministic on every device: '.' as the decimal
  * separator, no grouping, no locale data, so a plan reads the same on phone and server.
  */
-import { roundToDecimals } from './rounding.js';
+import { decimalPlaces, roundToDecimals } from './rounding.js';
 import {
   fromCelsius,
   fromG,
@@ -144,6 +144,26 @@ export function formatCountdown(ms: number): string {
   return formatDuration(seconds / 60);
 }
 
+/**
+ * Grams as the scale shows them, to its step ("12.30 g" on a 0.01 g scale). An amount that rounds to
+ * nothing though there is some reads "under 0.1 g" rather than "0 g".
+ */
+export function formatWeighed(shownG: number, stepG: number, unit: MassUnit = 'g', exactG = shownG): string {
+  if (shownG === 0 && exactG > 0) return `under ${formatMass(stepG, unit)}`;
+  return formatMass(shownG, unit, unit === 'g' ? { decimals: decimalPlaces(stepG) } : {});
+}
+
+/** Millilitres as the cup's marks show them; "under 1 mL" where the marks would read 0 of something. */
+export function formatCupped(shownMl: number, stepMl: number, unit: VolumeUnit = 'mL', exactMl = shownMl): string {
+  if (shownMl === 0 && exactMl > 0) return `under ${formatVolume(stepMl, unit)}`;
+  return formatVolume(shownMl, unit);
+}
+
 function withUnit(value: number, label: string, options: NumberFormatOptions): string {
-  return `${formatNumber(value, options)} ${label}`;
+  const text = formatNumber(value, options);
+  // Something too small for the places shown is not nothing: "under 0.1 mL", not "0 mL".
+  if (value > 0 && options.decimals === undefined && Number(text) === 0) {
+    return `under ${(10 ** -(options.maxDecimals ?? 2)).toFixed(options.maxDecimals ?? 2)} ${label}`;
+  }
+  return `${text} ${label}`;
 }

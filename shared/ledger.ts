@@ -41,9 +41,30 @@ function toMilli(quantity: number): number {
   return Math.round(quantity * MILLI);
 }
 
+/**
+ * Plain words for a stock-book entry that cannot be summed, or null: a quantity that is not a number,
+ * a purchase that takes stock away, a use or waste that adds it.
+ */
+export function ledgerEntryProblem(entry: Pick<LedgerEntry, 'kind' | 'quantity'>): string | null {
+  const { kind, quantity } = entry;
+  if (typeof quantity !== 'number' || !Number.isFinite(quantity)) {
+    return `A stock-book entry (${kind}) has a quantity that is not a number (${String(quantity)}).`;
+  }
+  if (kind === 'purchase' && quantity <= 0) {
+    return `A purchase must add stock: its quantity must be above 0, got ${quantity}.`;
+  }
+  if ((kind === 'pour-use' || kind === 'waste') && quantity >= 0) {
+    return `A ${kind === 'waste' ? 'waste' : 'pour use'} must take stock away: its quantity must be below 0, got ${quantity}.`;
+  }
+  return null;
+}
+
+/** What is left in each container: the sum of its entries. Refuses an entry that cannot be summed. */
 export function remainingByContainer(entries: readonly LedgerEntry[]): Record<string, number> {
   const milli = new Map<string, number>();
   for (const entry of entries) {
+    const problem = ledgerEntryProblem(entry);
+    if (problem !== null) throw new RangeError(`${problem} Container ${entry.containerId}.`);
     milli.set(entry.containerId, (milli.get(entry.containerId) ?? 0) + toMilli(entry.quantity));
   }
   return Object.fromEntries([...milli].map(([containerId, sum]) => [containerId, sum / MILLI]));
@@ -126,9 +147,18 @@ export function volumeToMassG(ml: number, densityGPerMl: number): number {
   return ml * densityGPerMl;
 }
 
+// Costs are kept to the millionth of a minor unit (a cent, a penny) and rounded to whole ones only
+// once per line of a report, so a hundred uses of a fraction of a cent each still cost something.
+const MICRO = 1_000_000;
+
+function toMicro(costMinor: number): number {
+  return Math.round(costMinor * MICRO);
+}
+
 /**
- * amount x (price / size), rounded half up to a whole minor unit (design.md section 4).
- * Worked in integers (thousandths of the unit, BigInt) so no rounding surprise at half a cent.
+ * amount x (price / size) in minor units, to the millionth (rounded half up there): the exact cost of
+ * one stock-book entry. Worked in integers (BigInt) so no binary rounding creeps in. Round it to whole
+ * minor units with `wholeMinor` only where a line of money is shown.
  */
 export function costOfUseMinor(quantity: number, container: Pick<Container, 'sizeQty' | 'priceMinor'>): number {
   if (!Number.isFinite(quantity) || quantity < 0) {
@@ -141,8 +171,25 @@ export function costOfUseMinor(quantity: number, container: Pick<Container, 'siz
   if (sizeMilli <= 0n) {
     throw new RangeError(`Container size must be above 0, got ${container.sizeQty}`);
   }
-  const numerator = BigInt(toMilli(quantity)) * BigInt(container.priceMinor);
-  return Number((2n * numerator + sizeMilli) / (2n * sizeMilli));
+  const numerator = BigInt(toMilli(quantity)) * BigInt(container.priceMinor) * BigInt(MICRO);
+  return Number((2n * numerator + sizeMilli) / (2n * sizeMilli)) / MICRO;
+}
+
+/** Exact costs added up without binary residue (to the millionth of a minor unit). */
+export function sumCostsMinor(costsMinor: Iterable<number>): number {
+  let micro = 0;
+  for (const cost of costsMinor) {
+    if (!Number.isFinite(cost)) throw new RangeError(`A cost must be a finite number, got ${cost}`);
+    micro += toMicro(cost);
+  }
+  return micro / MICRO;
+}
+
+/** An exact cost as whole minor units, half away from zero: the one rounding a line of money gets. */
+export function wholeMinor(costMinor: number): number {
+  if (!Number.isFinite(costMinor)) throw new RangeError(`A cost must be a finite number, got ${costMinor}`);
+  const micro = toMicro(costMinor);
+  return Math.sign(micro) * Math.floor((Math.abs(micro) + MICRO / 2) / MICRO);
 }
 
 export interface Use {
@@ -150,17 +197,14 @@ export interface Use {
   readonly container: Pick<Container, 'sizeQty' | 'priceMinor' | 'currency'>;
 }
 
-/**
- * Total cost per currency. Each use is rounded on its own, so a build's total always
- * equals the sum of the cost lines shown for it. Currencies are never added together.
- */
+/** Total cost per currency in whole minor units: the uses summed exactly, rounded once. Currencies never mix. */
 export function costOfUses(uses: readonly Use[]): Record<string, number> {
-  const totals = new Map<string, number>();
+  const exact = new Map<string, number[]>();
   for (const use of uses) {
     const { currency } = use.container;
-    totals.set(currency, (totals.get(currency) ?? 0) + costOfUseMinor(use.quantity, use.container));
+    exact.set(currency, [...(exact.get(currency) ?? []), costOfUseMinor(use.quantity, use.container)]);
   }
-  return Object.fromEntries(totals);
+  return Object.fromEntries([...exact].map(([currency, costs]) => [currency, wholeMinor(sumCostsMinor(costs))]));
 }
 
 function assertDensity(densityGPerMl: number): void {

@@ -2,7 +2,9 @@
  * Part A and part B for a pour, by weight or by volume, as the maker's data sheet gives
  * the ratio. A single-part medium (gloss medium, water gel) has no part B.
  */
+import { formatCupped, formatMass, formatVolume, formatWeighed } from './format.js';
 import { roundToStep } from './rounding.js';
+import type { MassUnit, VolumeUnit } from './units.js';
 import type { TradeWarning } from './warning.js';
 
 export type MixBasis = 'volume' | 'weight';
@@ -23,7 +25,7 @@ export interface PartAmounts {
   readonly totalG: number;
 }
 
-export type MixWarningCode = 'batch-too-small' | 'ratio-shifted';
+export type MixWarningCode = 'batch-too-small' | 'ratio-shifted' | 'ratio-shifted-by-volume';
 
 export interface MixAmounts {
   readonly basis: MixBasis;
@@ -37,8 +39,12 @@ export interface MixAmounts {
   readonly perLayer: PartAmounts;
   /** perLayer times the layer count, as actually mixed over the whole pour. */
   readonly total: PartAmounts;
-  /** How far the rounded per-layer amounts stray from the data-sheet ratio, in percent. */
+  /** How far the per-layer grams shown stray from the data-sheet ratio, in percent. */
   readonly ratioShiftPercent: number;
+  /** How far the per-layer millilitres shown (rounded to the cup's marks) stray from the ratio, in percent. */
+  readonly volumeRatioShiftPercent: number;
+  /** The shift either measure may have before a warning: the data sheet's, or the default. */
+  readonly tolerancePercent: number;
   readonly warnings: readonly TradeWarning<MixWarningCode>[];
 }
 
@@ -52,6 +58,8 @@ export interface MixAmountsInput {
   readonly scaleResolutionG: number;
   /** Smallest mark on the mixing cup or syringe (default 1 mL). */
   readonly cupResolutionMl?: number;
+  /** How far off the ratio the data sheet allows, in percent (default DEFAULT_RATIO_TOLERANCE_PERCENT). */
+  readonly tolerancePercent?: number;
 }
 
 /**
@@ -60,8 +68,11 @@ export interface MixAmountsInput {
  */
 export const MIN_STEPS_PER_PART = 20;
 
-/** Common practice: data sheets ask for an accurate ratio; a few percent off leaves soft or tacky spots. */
-export const MAX_RATIO_SHIFT_PERCENT = 3;
+/**
+ * Common practice: data sheets ask for an accurate ratio and a few percent off leaves soft or tacky
+ * spots, so the amounts shown may stray at most 2 % unless the data sheet allows more.
+ */
+export const DEFAULT_RATIO_TOLERANCE_PERCENT = 2;
 
 export function isSinglePart(ratio: MixRatio): boolean {
   return (ratio.partB ?? 0) === 0;
@@ -81,6 +92,7 @@ export function mixAmounts(input: MixAmountsInput): MixAmounts {
   const { ratio, densityAGPerMl, scaleResolutionG } = input;
   const layerCount = input.layerCount ?? 1;
   const cupResolutionMl = input.cupResolutionMl ?? 1;
+  const tolerancePercent = input.tolerancePercent ?? DEFAULT_RATIO_TOLERANCE_PERCENT;
   if (!Number.isFinite(input.volumeMl) || input.volumeMl < 0) {
     throw new RangeError(`Volume must be a finite number of 0 mL or more, got ${input.volumeMl}`);
   }
@@ -89,6 +101,7 @@ export function mixAmounts(input: MixAmountsInput): MixAmounts {
   }
   assertPositive(scaleResolutionG, 'Scale resolution');
   assertPositive(cupResolutionMl, 'Cup resolution');
+  assertPositive(tolerancePercent, 'Ratio tolerance');
   const { fractionA, fractionB, densityB } = checkedParts(ratio, densityAGPerMl, input.densityBGPerMl);
   const singlePart = isSinglePart(ratio);
   const density = mixedDensityGPerMl(ratio, densityAGPerMl, densityB);
@@ -101,7 +114,13 @@ export function mixAmounts(input: MixAmountsInput): MixAmounts {
   // Every amount is shown in grams first: weighing is the finest measure a bench has, whatever
   // the basis of the ratio, so the warnings judge the scale, not the cup.
   const nothingToMix = input.volumeMl === 0;
-  const shiftPercent = nothingToMix || singlePart ? 0 : weighedRatioShiftPercent(exactPerLayer, perLayer);
+  const unmixed = nothingToMix || singlePart;
+  const shiftPercent = unmixed
+    ? 0
+    : ratioShiftPercent(exactPerLayer.partAG, exactPerLayer.partBG, perLayer.partAG, perLayer.partBG);
+  const volumeShiftPercent = unmixed
+    ? 0
+    : ratioShiftPercent(exactPerLayer.partAMl, exactPerLayer.partBMl, perLayer.partAMl, perLayer.partBMl);
   const warnings: TradeWarning<MixWarningCode>[] = [];
   const smallerPartG = singlePart ? exactPerLayer.partAG : Math.min(exactPerLayer.partAG, exactPerLayer.partBG);
   if (!nothingToMix && smallerPartG < MIN_STEPS_PER_PART * scaleResolutionG) {
@@ -111,10 +130,22 @@ export function mixAmounts(input: MixAmountsInput): MixAmounts {
         'One part is too small to weigh within 5% on this scale. Use a scale that reads finer or mix more at once.',
     });
   }
-  if (shiftPercent > MAX_RATIO_SHIFT_PERCENT) {
+  if (shiftPercent > tolerancePercent) {
     warnings.push({
       code: 'ratio-shifted',
-      message: `Rounded to what the scale can weigh, the mix is ${Math.round(shiftPercent)}% off the data-sheet ratio. Use a finer scale or mix a larger batch.`,
+      message:
+        `Weighed as shown (${formatMass(perLayer.partAG)} and ${formatMass(perLayer.partBG)}), the mix is ` +
+        `${percent(shiftPercent)} off the ratio; the data sheet allows ${percent(tolerancePercent)}. ` +
+        'Use a scale that reads finer or mix a larger batch.',
+    });
+  }
+  if (volumeShiftPercent > tolerancePercent) {
+    warnings.push({
+      code: 'ratio-shifted-by-volume',
+      message:
+        `Measured to the cup's marks as shown (${formatVolume(perLayer.partAMl)} and ${formatVolume(perLayer.partBMl)}), ` +
+        `the mix is ${percent(volumeShiftPercent)} off the ratio; the data sheet allows ${percent(tolerancePercent)}. ` +
+        'Weigh the parts instead, use a cup with finer marks or mix a larger batch.',
     });
   }
 
@@ -128,18 +159,45 @@ export function mixAmounts(input: MixAmountsInput): MixAmounts {
     perLayer,
     total,
     ratioShiftPercent: shiftPercent,
+    volumeRatioShiftPercent: volumeShiftPercent,
+    tolerancePercent,
     warnings,
   };
 }
 
-/** How far the weighed part B per gram of part A strays from the exact one, in percent. */
-function weighedRatioShiftPercent(exact: PartAmounts, weighed: PartAmounts): number {
-  if (weighed.partAG === 0) {
-    return 100;
-  }
-  // A part B too small to be a number in grams: the mix is right only if none is weighed either.
-  if (exact.partBG === 0 || exact.partAG === 0) return weighed.partBG === 0 ? 0 : 100;
-  return Math.abs(weighed.partBG / weighed.partAG / (exact.partBG / exact.partAG) - 1) * 100;
+/**
+ * One part as the bench measures it: grams to the scale's step, millilitres to the cup's marks, and
+ * "under 1 mL" where a part rounds to nothing though the pour needs some.
+ */
+export function formatPart(
+  mix: Pick<MixAmounts, 'perLayer' | 'exactPerLayer' | 'total' | 'exactTotal'>,
+  of: 'perLayer' | 'total',
+  which: 'A' | 'B',
+  steps: { readonly scaleResolutionG: number; readonly cupResolutionMl?: number },
+  units: { readonly mass: MassUnit; readonly volume: VolumeUnit },
+): { readonly mass: string; readonly volume: string } {
+  const [shown, exact] = of === 'perLayer' ? [mix.perLayer, mix.exactPerLayer] : [mix.total, mix.exactTotal];
+  const [shownG, exactG, shownMl, exactMl] =
+    which === 'A'
+      ? [shown.partAG, exact.partAG, shown.partAMl, exact.partAMl]
+      : [shown.partBG, exact.partBG, shown.partBMl, exact.partBMl];
+  return {
+    mass: formatWeighed(shownG, steps.scaleResolutionG, units.mass, exactG),
+    volume: formatCupped(shownMl, steps.cupResolutionMl ?? 1, units.volume, exactMl),
+  };
+}
+
+/** Percent, to one decimal below 10 so a 2.4 % shift does not read as the 2 % allowed. */
+function percent(value: number): string {
+  return `${value < 10 ? Math.round(value * 10) / 10 : Math.round(value)} %`;
+}
+
+/** How far part B per unit of part A, as shown, strays from the exact one, in percent. */
+function ratioShiftPercent(exactA: number, exactB: number, shownA: number, shownB: number): number {
+  if (shownA === 0) return 100;
+  // A part B too small to be a number at all: the mix is right only if none is shown either.
+  if (exactB === 0 || exactA === 0) return shownB === 0 ? 0 : 100;
+  return Math.abs(shownB / shownA / (exactB / exactA) - 1) * 100;
 }
 
 function splitParts(

@@ -106,8 +106,11 @@ export function drawForPour(
     if (allocation.shortfallQty > 0) shortfall.push({ part, quantityG: allocation.shortfallQty });
     for (const { containerId, quantity: takenG } of allocation.allocations) {
       const container = candidates.find((candidate) => candidate.id === containerId)!;
+      // Grams back to millilitres can round a thousandth above what the container holds: never more than it holds.
       const quantity =
-        container.unit === 'g' ? takenG : Math.round(massToVolumeMl(takenG, densityGPerMl) * MILLI) / MILLI;
+        container.unit === 'g'
+          ? takenG
+          : Math.min(container.remainingQty, Math.round(massToVolumeMl(takenG, densityGPerMl) * MILLI) / MILLI);
       // A dense part's last milligram can round to 0 mL: there is then nothing to enter in the stock book.
       if (quantity > 0) uses.push({ containerId, part, quantity, costMinor: costOfUseMinor(quantity, container) });
     }

@@ -105,6 +105,7 @@ export function remainingLayers(
     ratio: material.mixRatio,
     densityAGPerMl: material.densityAGPerMl,
     ...(material.densityBGPerMl === undefined ? {} : { densityBGPerMl: material.densityBGPerMl }),
+    ...(material.ratioTolerancePercent === undefined ? {} : { tolerancePercent: material.ratioTolerancePercent }),
     layerCount: count,
     scaleResolutionG: request.scaleResolutionG,
     cupResolutionMl: request.cupResolutionMl,

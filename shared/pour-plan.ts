@@ -65,6 +65,7 @@ export function planPour(input: unknown): PourPlanResult {
     ratio: material.mixRatio,
     densityAGPerMl: material.densityAGPerMl,
     ...(material.densityBGPerMl === undefined ? {} : { densityBGPerMl: material.densityBGPerMl }),
+    ...(material.ratioTolerancePercent === undefined ? {} : { tolerancePercent: material.ratioTolerancePercent }),
     layerCount: split.count,
     scaleResolutionG: request.scaleResolutionG,
     cupResolutionMl: request.cupResolutionMl,

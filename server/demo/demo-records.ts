@@ -168,6 +168,7 @@ export async function seedDemoBench(
       roomTempC,
       startAt: daysAgo(days).toISOString(),
       scaleResolutionG: 0.1,
+      cupResolutionMl: 1,
       whenShort: 'record-shortfall',
       note: '',
     });

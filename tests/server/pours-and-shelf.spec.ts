@@ -48,9 +48,9 @@ describe('pours drawing on the shelf', () => {
     expect(pour.body.plan.mix.total.partAG).toBe(9.9);
     expect(await remaining(client, partA)).toBe(490.1);
     expect(await remaining(client, partB)).toBe(490.1);
-    // 9.9 g × 2500/500 = 49.5 → 50 cents; 9.9 g × 2000/500 = 39.6 → 40 cents (each use rounded half up).
+    // 9.9 g × 2500/500 = 49.5 cents; 9.9 g × 2000/500 = 39.6 cents; 89.1 cents in all, rounded once to 89.
     const costs = (await client.get('/costs').expect(200)).body;
-    expect(costs.byBuild).toEqual([{ key: buildId, label: 'Mill race', currency: 'EUR', costMinor: 90 }]);
+    expect(costs.byBuild).toEqual([{ key: buildId, label: 'Mill race', currency: 'EUR', costMinor: 89 }]);
   });
 
   it('should take the oldest container first and move on to the next', async () => {
@@ -232,9 +232,10 @@ describe('costs and exports', () => {
     const rows = parse(csv.text, { columns: true }) as Record<string, string>[];
 
     expect(rows).toContain(
-      jasmine.objectContaining({ group: 'build', label: 'Harbour, "east" quay', cost_minor: '90', cost: '0.90' }),
+      // 49.5 + 39.6 cents, rounded once (see the pour above)
+      jasmine.objectContaining({ group: 'build', label: 'Harbour, "east" quay', cost_minor: '89', cost: '0.89' }),
     );
-    expect(rows).toContain(jasmine.objectContaining({ group: 'total', currency: 'EUR', cost_minor: '90' }));
+    expect(rows).toContain(jasmine.objectContaining({ group: 'total', currency: 'EUR', cost_minor: '89' }));
   });
 
   it('should write text a spreadsheet would run as a formula as plain text, and keep numbers numbers', async () => {
@@ -262,7 +263,7 @@ describe('costs and exports', () => {
     }[];
 
     expect(builds.map((row) => row.name).sort()).toEqual(planted.map((name) => `'${name}`).sort());
-    expect(costs).toContain(jasmine.objectContaining({ group: 'build', label: `'${planted[0]}`, cost_minor: '90' }));
+    expect(costs).toContain(jasmine.objectContaining({ group: 'build', label: `'${planted[0]}`, cost_minor: '89' }));
     expect(costs).toContain(jasmine.objectContaining({ group: 'material', label: "'=1+1" }));
     const draws = ledger.map((row) => row.quantity).filter((quantity) => quantity.startsWith('-'));
     expect(draws.length).toBeGreaterThan(0);

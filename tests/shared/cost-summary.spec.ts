@@ -53,7 +53,29 @@ describe('summariseCosts (worked example by hand)', () => {
   });
 });
 
+describe('summariseCosts with exact costs', () => {
+  it('should sum exactly and round each line once: 0.4 + 0.4 + 0.4 cents on one build is 1 cent, not 0', () => {
+    const report = summariseCosts([row({ costMinor: 0.4 }), row({ costMinor: 0.4 }), row({ costMinor: 0.4 })]);
+    expect(report.byBuild.map((line) => line.costMinor)).toEqual([1]);
+    expect(report.total.map((line) => line.costMinor)).toEqual([1]);
+  });
+
+  it('should refuse a cost that is not a number or is below 0, in plain words', () => {
+    expect(() => summariseCosts([row({ costMinor: 100 }), row({ costMinor: Number.NaN })])).toThrowError(
+      RangeError,
+      /A cost in the stock book is not a number \(NaN\)\. Material Clear resin, 2026-11\./,
+    );
+    expect(() => summariseCosts([row({ costMinor: -5 })])).toThrowError(RangeError, /must be 0 or more, got -5/);
+  });
+});
+
 describe('formatMoney (ISO 4217 minor units: EUR 2 decimals, JPY 0)', () => {
+  it('should round exact minor units once, half away from zero, and refuse NaN rather than print it', () => {
+    expect(formatMoney(149.95, 'EUR', 'en-GB')).toBe('€1.50');
+    expect(formatMoney(0.4999, 'EUR', 'en-GB')).toBe('€0.00');
+    expect(() => formatMoney(Number.NaN, 'EUR', 'en-GB')).toThrowError(RangeError);
+  });
+
   it('should turn minor units into the amount the currency writes', () => {
     expect(formatMoney(1234, 'EUR', 'en-GB')).toBe('€12.34');
     expect(formatMoney(500, 'JPY', 'en-GB')).toBe('JP¥500');

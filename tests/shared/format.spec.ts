@@ -2,12 +2,14 @@ import fc from 'fast-check';
 import {
   decimalPlaces,
   formatCountdown,
+  formatCupped,
   formatDuration,
   formatLength,
   formatMass,
   formatNumber,
   formatTemperature,
   formatVolume,
+  formatWeighed,
   roundToSignificant,
   roundToStep,
 } from '../../shared/index.js';
@@ -103,6 +105,28 @@ describe('quantity formatting', () => {
   it('should show temperatures in degrees C or F (F = C x 9/5 + 32, NIST SP 811)', () => {
     expect(formatTemperature(21.5)).toBe('21.5 °C');
     expect(formatTemperature(20, 'F')).toBe('68 °F');
+  });
+});
+
+describe('tiny amounts', () => {
+  it('should say "under" rather than show 0 for something too small for the places shown', () => {
+    expect(formatVolume(0.04)).toBe('under 0.1 mL');
+    expect(formatMass(0.004)).toBe('under 0.01 g');
+    expect(formatVolume(0.06)).toBe('0.1 mL');
+    expect(formatVolume(0)).toBe('0 mL');
+  });
+
+  it('should show grams to the step the scale reads, and "under" the step for a part that rounds to none', () => {
+    expect(formatWeighed(12.3, 0.01)).toBe('12.30 g');
+    expect(formatWeighed(0, 0.1, 'g', 0.04)).toBe('under 0.1 g');
+    expect(formatWeighed(0, 0.1)).toBe('0.0 g');
+  });
+
+  it('should show millilitres to the cup\'s marks, "under 1 mL" where the marks would read nothing', () => {
+    expect(formatCupped(3, 1)).toBe('3 mL');
+    expect(formatCupped(0, 1, 'mL', 0.4)).toBe('under 1 mL');
+    // 1 mL = 0.0338 US fl oz (1 US fl oz = 29.5735295625 mL, NIST Handbook 44)
+    expect(formatCupped(0, 1, 'usFlOz', 0.4)).toBe('under 0.03 fl oz');
   });
 });
 

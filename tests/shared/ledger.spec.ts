@@ -3,6 +3,8 @@ import {
   allocateFifo,
   costOfUseMinor,
   costOfUses,
+  sumCostsMinor,
+  wholeMinor,
   massToVolumeMl,
   remainingByContainer,
   stocktakeAdjustment,
@@ -22,6 +24,29 @@ describe('ledger', () => {
 
     it('should sum the entries per container without binary residue: 100 - 12.3 - 45.6 is 42.1', () => {
       expect(remainingByContainer(entries)).toEqual({ 'resin-a': 42.1, 'resin-b': 50 });
+    });
+
+    it('should refuse an entry that is not a number or has the wrong sign, rather than sum to NaN', () => {
+      const bad = (kind: LedgerEntry['kind'], quantity: number): LedgerEntry => ({
+        containerId: 'resin-a',
+        kind,
+        quantity,
+        atMs: 3,
+      });
+      expect(() => remainingByContainer([...entries, bad('pour-use', Number.NaN)])).toThrowError(
+        RangeError,
+        'A stock-book entry (pour-use) has a quantity that is not a number (NaN). Container resin-a.',
+      );
+      expect(() => remainingByContainer([bad('purchase', -500)])).toThrowError(RangeError, /purchase must add stock/);
+      expect(() => remainingByContainer([bad('pour-use', 12)])).toThrowError(
+        RangeError,
+        /pour use must take stock away/,
+      );
+      expect(() => remainingByContainer([bad('waste', 0)])).toThrowError(RangeError, /waste must take stock away/);
+      // a stocktake is the counted minus the expected, either way
+      expect(remainingByContainer([bad('purchase', 10), bad('stocktake', -2.5), bad('stocktake', 0.5)])).toEqual({
+        'resin-a': 8,
+      });
     });
 
     it('should give the same stock whatever order entries sync in (property)', () => {
@@ -114,39 +139,59 @@ describe('ledger', () => {
   describe('cost', () => {
     const kit = { sizeQty: 1000, priceMinor: 2999, currency: 'EUR' };
 
-    it('should cost a use as amount x price / size, rounded to a whole cent: 50 g of a 1000 g kit at 29.99 is 1.50', () => {
-      expect(costOfUseMinor(50, kit)).toBe(150);
+    it('should cost a use as amount x price / size, exact to the millionth of a cent: 50 g of a 1000 g kit at 29.99 is 149.95 cents', () => {
+      // hand-worked: 50 x 2999 / 1000 = 149.95
+      expect(costOfUseMinor(50, kit)).toBe(149.95);
+      // hand-worked: 1 x 100 / 3 = 33.3333333..., kept to the millionth
+      expect(costOfUseMinor(1, { sizeQty: 3, priceMinor: 100 })).toBe(33.333333);
     });
 
-    it('should round exactly half a minor unit up', () => {
-      expect(costOfUseMinor(1, { sizeQty: 2, priceMinor: 3 })).toBe(2);
-      expect(costOfUseMinor(0.1, { sizeQty: 0.2, priceMinor: 5 })).toBe(3);
+    it('should round a line of money once, exactly half a minor unit away from zero', () => {
+      expect(wholeMinor(costOfUseMinor(1, { sizeQty: 2, priceMinor: 3 }))).toBe(2);
+      expect(wholeMinor(costOfUseMinor(0.1, { sizeQty: 0.2, priceMinor: 5 }))).toBe(3);
+      expect(wholeMinor(149.95)).toBe(150);
+      expect(wholeMinor(-2.5)).toBe(-3);
+      expect(wholeMinor(0.4999)).toBe(0);
     });
 
-    it('should sum rounded uses per currency and never add currencies together', () => {
+    it('should sum exact uses per currency, round once, and never add currencies together', () => {
       const uses = [
         { quantity: 50, container: kit },
         { quantity: 33.3, container: kit },
         { quantity: 10, container: { sizeQty: 500, priceMinor: 1500, currency: 'GBP' } },
       ];
-      expect(costOfUses(uses)).toEqual({ EUR: 150 + 100, GBP: 30 });
+      // hand-worked: 149.95 + 33.3 x 2.999 (= 99.8667) = 249.8167 cents, 2.50; 10 x 1500 / 500 = 30 pence
+      expect(costOfUses(uses)).toEqual({ EUR: 250, GBP: 30 });
     });
 
-    it('should make a build total equal the sum of its cost lines (property)', () => {
+    it('should not let a hundred uses of under half a cent each cost nothing', () => {
+      // hand-worked: 0.05 g of a 500 g bottle at 49.99 is 0.05 x 4999 / 500 = 0.4999 cent; a hundred are 49.99 cents
+      const bottle = { sizeQty: 500, priceMinor: 4999, currency: 'EUR' };
+      const uses = Array.from({ length: 100 }, () => ({ quantity: 0.05, container: bottle }));
+      expect(costOfUses(uses)).toEqual({ EUR: 50 });
+      expect(sumCostsMinor(uses.map((use) => costOfUseMinor(use.quantity, bottle)))).toBe(49.99);
+    });
+
+    it('should cost many uses within half a cent of the whole amount at the unit price (property)', () => {
       fc.assert(
         fc.property(
           fc.array(
             fc.integer({ min: 0, max: 1_000_000 }).map((milli) => milli / 1000),
-            { maxLength: 20 },
+            { maxLength: 50 },
           ),
           (quantities) => {
             const uses = quantities.map((quantity) => ({ quantity, container: kit }));
-            const lines = quantities.map((quantity) => costOfUseMinor(quantity, kit));
-            expect(costOfUses(uses)['EUR'] ?? 0).toBe(lines.reduce((sum, line) => sum + line, 0));
-            expect(lines.every((line) => Number.isInteger(line) && line >= 0)).toBeTrue();
+            // the whole amount priced once, in plain floating point: an independent figure
+            const whole = (quantities.reduce((sum, quantity) => sum + quantity, 0) * kit.priceMinor) / kit.sizeQty;
+            expect(Math.abs((costOfUses(uses)['EUR'] ?? 0) - whole)).toBeLessThanOrEqual(0.5 + 1e-6);
           },
         ),
       );
+    });
+
+    it('should refuse a cost that is not a number', () => {
+      expect(() => sumCostsMinor([1, Number.NaN])).toThrowError(RangeError, /finite number/);
+      expect(() => wholeMinor(Number.POSITIVE_INFINITY)).toThrowError(RangeError);
     });
   });
 });

@@ -107,7 +107,7 @@ describe('mix', () => {
       expect(coarse.warnings.map((warning) => warning.code)).toContain('batch-too-small');
     });
 
-    it('should warn when rounding moves the ratio more than 3%: 100:30 of 3 g on a 1 g scale weighs 2 g + 1 g', () => {
+    it('should warn when rounding moves the ratio more than 2 %: 100:30 of 3 g on a 1 g scale weighs 2 g + 1 g', () => {
       const mix = mixAmounts({
         volumeMl: 3,
         ratio: { basis: 'weight', partA: 100, partB: 30 },
@@ -118,7 +118,72 @@ describe('mix', () => {
       expect(mix.perLayer.partAG).toBe(2);
       expect(mix.perLayer.partBG).toBe(1);
       expect(mix.ratioShiftPercent).toBeGreaterThan(60);
-      expect(mix.warnings.map((warning) => warning.code)).toEqual(['batch-too-small', 'ratio-shifted']);
+      // and on the default 1 mL cup 2 mL + 1 mL, as far off
+      expect(mix.warnings.map((warning) => warning.code)).toEqual([
+        'batch-too-small',
+        'ratio-shifted',
+        'ratio-shifted-by-volume',
+      ]);
+    });
+
+    describe('judged on the millilitres shown as well as the grams', () => {
+      // Hand-worked: 10 mL at 2:1 by volume is 6.67 mL + 3.33 mL; on a 1 mL cup that shows 7 + 3,
+      // and 3/7 against 1/2 is (3/7) / (1/2) - 1 = -14.3 %. On a 0.1 mL cup: 6.7 + 3.3,
+      // (3.3/6.7) / (1/2) - 1 = -1.5 %, inside the 2 % allowed without a data-sheet tolerance (common practice).
+      const batch = { volumeMl: 10, ratio: { basis: 'volume', partA: 2, partB: 1 } as MixRatio };
+      const resin = { densityAGPerMl: 1.1, densityBGPerMl: 0.97, scaleResolutionG: 0.1 };
+
+      it('should warn that a small batch on a 1 mL cup is 14 % off, and advise weighing, a finer cup or more', () => {
+        const mix = mixAmounts({ ...batch, ...resin, cupResolutionMl: 1 });
+        expect(mix.perLayer.partAMl).toBe(7);
+        expect(mix.perLayer.partBMl).toBe(3);
+        expect(mix.volumeRatioShiftPercent).toBeCloseTo(14.29, 2);
+        const warning = mix.warnings.find((entry) => entry.code === 'ratio-shifted-by-volume');
+        expect(warning?.message).toContain('14 % off the ratio');
+        expect(warning?.message).toContain('allows 2 %');
+        expect(warning?.message).toMatch(/Weigh the parts.*finer marks.*larger batch/);
+        // 7.3 g + 3.2 g on a 0.1 g scale is 0.6 % off by weight: weighing is the way out, so no weight warning
+        expect(mix.warnings.map((entry) => entry.code)).not.toContain('ratio-shifted');
+      });
+
+      it('should not warn on a 0.1 mL cup, 1.5 % off', () => {
+        const mix = mixAmounts({ ...batch, ...resin, cupResolutionMl: 0.1 });
+        expect(mix.perLayer.partAMl).toBeCloseTo(6.7, 9);
+        expect(mix.perLayer.partBMl).toBeCloseTo(3.3, 9);
+        expect(mix.volumeRatioShiftPercent).toBeCloseTo(1.49, 2);
+        expect(mix.warnings).toEqual([]);
+      });
+
+      it("should allow what the data sheet's own tolerance allows", () => {
+        const lenient = mixAmounts({ ...batch, ...resin, cupResolutionMl: 1, tolerancePercent: 15 });
+        expect(lenient.tolerancePercent).toBe(15);
+        expect(lenient.warnings).toEqual([]);
+        const strict = mixAmounts({ ...batch, ...resin, cupResolutionMl: 0.1, tolerancePercent: 1 });
+        expect(strict.warnings.map((entry) => entry.code)).toEqual(['ratio-shifted-by-volume']);
+      });
+
+      it('should warn on grams at 2 % with no tolerance: 3.3 g at 100:30 on a 0.1 g scale is 2.5 g + 0.8 g', () => {
+        // Hand-worked: exact 2.538 g + 0.762 g; shown 2.5 g + 0.8 g, (0.8/2.5) / 0.3 - 1 = +6.7 %.
+        const mix = mixAmounts({
+          volumeMl: 3.3,
+          ratio: { basis: 'weight', partA: 100, partB: 30 },
+          densityAGPerMl: 1,
+          densityBGPerMl: 1,
+          scaleResolutionG: 0.1,
+          cupResolutionMl: 0.1,
+        });
+        expect(mix.perLayer.partAG).toBeCloseTo(2.5, 9);
+        expect(mix.perLayer.partBG).toBeCloseTo(0.8, 9);
+        expect(mix.ratioShiftPercent).toBeCloseTo(6.67, 2);
+        expect(mix.warnings.find((entry) => entry.code === 'ratio-shifted')?.message).toContain('6.7 % off the ratio');
+      });
+
+      it('should refuse a tolerance that is not a number above 0', () => {
+        expect(() => mixAmounts({ ...batch, ...resin, tolerancePercent: Number.NaN })).toThrowError(
+          RangeError,
+          /Ratio tolerance/,
+        );
+      });
     });
 
     it('should give nothing to mix, and no warnings, for 0 mL', () => {

@@ -80,11 +80,11 @@ describe('pour draw', () => {
 
       const draw = drawForPour(plan, shelf);
 
-      // 9.9 g × 2500 / 500 = 49.5 → 50 cents; 9.9 g × 2000 / 500 = 39.6 → 40 cents, each rounded half up.
+      // 9.9 g × 2500 / 500 = 49.5 cents; 9.9 g × 2000 / 500 = 39.6 cents, kept exact (a report rounds once).
       expect(draw).toEqual({
         uses: [
-          { containerId: 'a', part: 'A', quantity: 9.9, costMinor: 50 },
-          { containerId: 'b', part: 'B', quantity: 9.9, costMinor: 40 },
+          { containerId: 'a', part: 'A', quantity: 9.9, costMinor: 49.5 },
+          { containerId: 'b', part: 'B', quantity: 9.9, costMinor: 39.6 },
         ],
         shortfall: [],
       });
@@ -99,10 +99,10 @@ describe('pour draw', () => {
 
       const { uses } = drawForPour(plan, shelf);
 
-      // 5 g of the older 5 g tin at 1.00 costs 100 cents; the other 4.9 g × 2500 / 500 = 24.5 → 25 cents.
+      // 5 g of the older 5 g tin at 1.00 costs 100 cents; the other 4.9 g × 2500 / 500 = 24.5 cents.
       expect(uses.filter((use) => use.part === 'A')).toEqual([
         { containerId: 'older', part: 'A', quantity: 5, costMinor: 100 },
-        { containerId: 'newer', part: 'A', quantity: 4.9, costMinor: 25 },
+        { containerId: 'newer', part: 'A', quantity: 4.9, costMinor: 24.5 },
       ]);
     });
 
@@ -131,10 +131,10 @@ describe('pour draw', () => {
       const { uses } = drawForPour(planFor(singlePart), shelf);
 
       // 7 g × 2500 / 500 = 35 cents from the tin; the other 23 g - 7 g = 16 g from the bottle:
-      // 16 / 1.15 = 13.9130434… mL → 13.913 mL, costing 13.913 × 3000 / 250 = 166.956 → 167 cents.
+      // 16 / 1.15 = 13.9130434… mL → 13.913 mL, costing 13.913 × 3000 / 250 = 166.956 cents.
       expect(uses).toEqual([
         { containerId: 'tin', part: 'single', quantity: 7, costMinor: 35 },
-        { containerId: 'bottle', part: 'single', quantity: 13.913, costMinor: 167 },
+        { containerId: 'bottle', part: 'single', quantity: 13.913, costMinor: 166.956 },
       ]);
     });
 
@@ -216,6 +216,59 @@ describe('pour draw', () => {
             expect(use.quantity).toBeLessThanOrEqual(shelf.find((item) => item.id === use.containerId)!.remainingQty);
           }
         }),
+      );
+    });
+  });
+
+  describe('containers kept in millilitres', () => {
+    // Densities that make grams and millilitres disagree in the last place (invented figures).
+    const densityArb = fc.integer({ min: 800, max: 1600 }).map((milli) => milli / 1000);
+    const pourArb = fc.record({
+      lengthMm: fc.integer({ min: 5, max: 400 }),
+      depthMm: fc.integer({ min: 1, max: 30 }),
+      densityA: densityArb,
+      densityB: densityArb,
+    });
+    const mlShelfArb = fc.uniqueArray(
+      fc.record({
+        id: fc.string({ minLength: 1, maxLength: 4 }),
+        part: fc.constantFrom('A' as const, 'B' as const),
+        unit: fc.constantFrom('g' as const, 'mL' as const),
+        boughtOn: fc.constantFrom('2026-01-01', '2026-02-01', '2026-03-01'),
+        remainingQty: fc.integer({ min: 0, max: 60_000 }).map((milli) => milli / 1000),
+      }),
+      { selector: (item) => item.id, minLength: 1, maxLength: 6 },
+    );
+
+    it('should never take more than a container holds, to the thousandth of a millilitre (property)', () => {
+      fc.assert(
+        fc.property(pourArb, mlShelfArb, ({ lengthMm, depthMm, densityA, densityB }, items) => {
+          const result = planPour({
+            shape: { kind: 'rectangle', lengthMm, widthMm: 37 },
+            depthMm,
+            material: { ...twoPart, densityAGPerMl: densityA, densityBGPerMl: densityB, maxLayerMm: 30 },
+            roomTempC: 20,
+            startAtMs: Date.UTC(2026, 10, 20, 18),
+            scaleResolutionG: 0.01,
+          });
+          if (!result.ok) return;
+          const shelf = items.map((item) => container(item.id, item));
+
+          const draw = drawForPour(result.plan, shelf);
+
+          for (const use of draw.uses) {
+            const held = shelf.find((item) => item.id === use.containerId)!.remainingQty;
+            expect(Math.round(use.quantity * 1000)).toBeLessThanOrEqual(Math.round(held * 1000));
+          }
+          // and a container the pour emptied is left at exactly 0, never -0.001
+          for (const item of shelf) {
+            const taken = draw.uses
+              .filter((use) => use.containerId === item.id)
+              .reduce((sum, use) => sum + use.quantity, 0);
+            expect(Math.round((item.remainingQty - taken) * 1000)).toBeGreaterThanOrEqual(0);
+          }
+        }),
+        { numRuns: 500 },
       );
     });
   });

@@ -65,6 +65,7 @@ export async function makeRecords(ctx: ServerContext, owner: TestAccount, worksh
     roomTempC: 20,
     startAt: '2026-11-20T18:00:00Z',
     scaleResolutionG: 0.1,
+    cupResolutionMl: 1,
     whenShort: 'refuse',
     note: '',
     layerCount: 3,

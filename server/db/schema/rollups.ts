@@ -1,4 +1,4 @@
-import { bigint, date, numeric, pgTable, primaryKey, text, uuid } from 'drizzle-orm/pg-core';
+import { date, numeric, pgTable, primaryKey, text, uuid } from 'drizzle-orm/pg-core';
 
 /**
  * Running sums of the stock book, kept by database triggers on ledger_entries (see the
@@ -22,7 +22,8 @@ export const costTotals = pgTable(
     materialId: uuid('material_id').notNull(),
     month: date('month').notNull(),
     currency: text('currency').notNull(),
-    costMinor: bigint('cost_minor', { mode: 'number' }).notNull(),
+    /** Exact sum, in minor units to the millionth. */
+    costMinor: numeric('cost_minor', { precision: 24, scale: 6, mode: 'number' }).notNull(),
   },
   (table) => [
     primaryKey({ columns: [table.workshopId, table.buildId, table.materialId, table.month, table.currency] }),

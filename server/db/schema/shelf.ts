@@ -67,7 +67,8 @@ export const ledgerEntries = pgTable(
     kind: text('kind', { enum: ['purchase', 'pour-use', 'waste', 'stocktake'] }).notNull(),
     /** Signed, in the container's unit, exact to a thousandth. */
     quantity: numeric('quantity', { precision: 14, scale: 3, mode: 'number' }).notNull(),
-    costMinor: bigint('cost_minor', { mode: 'number' }).notNull().default(0),
+    /** Exact, in minor units to the millionth: rounded to whole cents only once per line of a report. */
+    costMinor: numeric('cost_minor', { precision: 20, scale: 6, mode: 'number' }).notNull().default(0),
     at: timestamp('at', { withTimezone: true }).notNull(),
     pourId: uuid('pour_id'),
     note: text('note').notNull().default(''),

@@ -4,6 +4,7 @@ import {
   buildPatchSchema,
   may,
   stepPatchSchema,
+  sumCostsMinor,
   type NewBuild,
   type NewStep,
   type PourLayerPatch,
@@ -285,7 +286,7 @@ function addMoney(sums: readonly MoneySum[], add: MoneySum): MoneySum[] {
   const found = sums.some((sum) => sum.currency === add.currency);
   return found
     ? sums.map((sum) =>
-        sum.currency === add.currency ? { currency: sum.currency, minor: sum.minor + add.minor } : sum,
+        sum.currency === add.currency ? { currency: sum.currency, minor: sumCostsMinor([sum.minor, add.minor]) } : sum,
       )
     : [...sums, add];
 }

@@ -3,6 +3,7 @@ import {
   findScale,
   formatLength,
   isValidRatio,
+  wholeMinor,
   type BUILD_STATUSES,
   type LengthUnit,
   type STEP_KINDS,
@@ -68,9 +69,10 @@ export function moneyText(minor: number, currency: string, locale: string): stri
   try {
     const format = new Intl.NumberFormat(locale, { style: 'currency', currency });
     const decimals = format.resolvedOptions().maximumFractionDigits ?? 2;
-    return format.format(minor / 10 ** decimals);
+    // Costs are exact to a millionth of a cent; a shown sum is rounded once, here.
+    return format.format(wholeMinor(minor) / 10 ** decimals);
   } catch {
     // A currency code the browser does not know: still the amount, with the code beside it.
-    return `${(minor / 100).toFixed(2)} ${currency}`;
+    return `${(wholeMinor(minor) / 100).toFixed(2)} ${currency}`;
   }
 }

@@ -1,5 +1,6 @@
 import {
-  decimalPlaces,
+  formatPart,
+  formatWeighed,
   formatDuration,
   formatLength,
   formatMass,
@@ -8,7 +9,6 @@ import {
   formatVolume,
   type DisplayUnits,
   type MaterialKind,
-  type PartAmounts,
 } from '@benchtide/shared';
 import { format } from 'date-fns';
 import { areaUnitFor } from '../pours/pour-form';
@@ -92,15 +92,11 @@ export function pourRecipe(pour: PourRecord, material: LocalMaterial | undefined
     };
   }
   const { mix, cure, layers } = plan;
-  const decimals = units.mass === 'g' ? decimalPlaces(request.scaleResolutionG) : undefined;
-  const mass = (g: number) => formatMass(g, units.mass, decimals === undefined ? {} : { decimals });
-  const lines = (amounts: PartAmounts): PartLine[] =>
-    mix.singlePart
-      ? [{ part: 'Medium', mass: mass(amounts.partAG), volume: formatVolume(amounts.partAMl, units.volume) }]
-      : [
-          { part: 'Part A', mass: mass(amounts.partAG), volume: formatVolume(amounts.partAMl, units.volume) },
-          { part: 'Part B', mass: mass(amounts.partBG), volume: formatVolume(amounts.partBMl, units.volume) },
-        ];
+  const mass = (g: number) => formatWeighed(g, request.scaleResolutionG, units.mass);
+  const lines = (of: 'perLayer' | 'total'): PartLine[] => {
+    const part = (name: string, which: 'A' | 'B') => ({ part: name, ...formatPart(mix, of, which, request, units) });
+    return mix.singlePart ? [part('Medium', 'A')] : [part('Part A', 'A'), part('Part B', 'B')];
+  };
   const ratio = request.material.mixRatio;
   const times: RecipeTime[] = [];
   const add = (label: string, atMs: number) => times.push({ label, atMs, at: format(atMs, WHEN) });
@@ -124,8 +120,8 @@ export function pourRecipe(pour: PourRecord, material: LocalMaterial | undefined
     ratio: mix.singlePart
       ? 'Single part'
       : `${formatNumber(ratio.partA)} : ${formatNumber(ratio.partB ?? 0)} by ${mix.basis}`,
-    perLayer: lines(mix.perLayer),
-    total: lines(mix.total),
+    perLayer: lines('perLayer'),
+    total: lines('total'),
     mixed: `${mass(mix.total.totalG)} mixed in all (${formatVolume(mix.total.totalMl, units.volume)})`,
     room:
       `${formatTemperature(cure.roomTempC, units.temperature)}; times are an estimate ` +

@@ -1,5 +1,5 @@
 import {
-  decimalPlaces,
+  formatWeighed,
   formatLength,
   formatMass,
   formatTemperature,
@@ -63,8 +63,7 @@ export function pouredLayers(
 ): PouredLayers | null {
   if (pour.plan === null || pour.request === null) return null;
   const followed = followLocalPour(pour as LocalPour, layers, nowMs);
-  const decimals = units.mass === 'g' ? decimalPlaces(pour.request.scaleResolutionG) : undefined;
-  const mass = (g: number) => formatMass(g, units.mass, decimals === undefined ? {} : { decimals });
+  const mass = (g: number) => formatWeighed(g, pour.request!.scaleResolutionG, units.mass);
   const singlePart = pour.plan.mix.singlePart;
   const parts = (a: number, b: number) => (singlePart ? mass(a) : `part A ${mass(a)}, part B ${mass(b)}`);
   const byNumber = new Map(layers.map((layer) => [layer.number, layer]));

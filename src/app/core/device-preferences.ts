@@ -6,6 +6,8 @@ export interface DevicePreferenceValues {
   temperatureUnit: TemperatureUnit;
   /** The finest step the modeller's kitchen scale reads, in grams. */
   scaleResolutionG: number;
+  /** The finest mark on the mixing cup or syringe, in millilitres. */
+  cupResolutionMl: number;
   /** The money new containers are priced in (ISO 4217 code). */
   currency: string;
   /** Light or dark, or as the device is set. */
@@ -19,11 +21,14 @@ const DEFAULTS: DevicePreferenceValues = {
   unitSystem: 'metric',
   temperatureUnit: 'C',
   scaleResolutionG: 0.1,
+  cupResolutionMl: 1,
   currency: 'EUR',
   theme: 'system',
 };
 const THEMES: readonly ThemeChoice[] = ['system', 'light', 'dark'];
 export const SCALE_RESOLUTIONS_G = [0.01, 0.1, 1] as const;
+/** Marks a bench has: a syringe (0.1 mL), small and large mixing cups. */
+export const CUP_RESOLUTIONS_ML = [0.1, 0.5, 1, 2, 5, 10] as const;
 
 /** Choices that belong to this device (units, the scale on this bench), kept in local storage. */
 @Injectable({ providedIn: 'root' })
@@ -60,6 +65,7 @@ function load(): DevicePreferenceValues {
       temperatureUnit: stored.temperatureUnit === 'F' ? 'F' : 'C',
       scaleResolutionG:
         SCALE_RESOLUTIONS_G.find((step) => step === stored.scaleResolutionG) ?? DEFAULTS.scaleResolutionG,
+      cupResolutionMl: CUP_RESOLUTIONS_ML.find((step) => step === stored.cupResolutionMl) ?? DEFAULTS.cupResolutionMl,
       currency:
         typeof stored.currency === 'string' && /^[A-Z]{3}$/.test(stored.currency) ? stored.currency : DEFAULTS.currency,
       theme: THEMES.find((theme) => theme === stored.theme) ?? DEFAULTS.theme,

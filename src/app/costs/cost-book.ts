@@ -1,10 +1,21 @@
 import { inject, Injectable } from '@angular/core';
-import { summariseCosts, type CostReport, type CostRow } from '@benchtide/shared';
+import {
+  costRowProblem,
+  ledgerEntryProblem,
+  sumCostsMinor,
+  summariseCosts,
+  type CostReport,
+  type CostRow,
+} from '@benchtide/shared';
 import { AccountSession } from '../core/account-session';
 import { BenchDb } from '../sync/bench-db';
 import { liveSignalOf } from '../sync/live-signal';
 
-const EMPTY: CostReport = { byBuild: [], byMaterial: [], byMonth: [], total: [] };
+const NO_COSTS: WorkshopCosts = {
+  report: { byBuild: [], byMaterial: [], byMonth: [], total: [] },
+  byMonthAndMaterial: [],
+  unreadable: 0,
+};
 
 /** A month's spending on one material, for the chart. */
 export interface MonthMaterialCost {
@@ -18,6 +29,8 @@ export interface MonthMaterialCost {
 export interface WorkshopCosts {
   readonly report: CostReport;
   readonly byMonthAndMaterial: MonthMaterialCost[];
+  /** Stock-book entries on this device whose quantity or cost is not a number, or has the wrong sign: left out. */
+  readonly unreadable: number;
 }
 
 /**
@@ -31,25 +44,26 @@ export class CostBook {
 
   readonly costs = liveSignalOf(
     this.session.currentWorkshopId,
-    (workshopId) => (workshopId === null ? { report: EMPTY, byMonthAndMaterial: [] } : this.costsOf(workshopId)),
-    { report: EMPTY, byMonthAndMaterial: [] } as WorkshopCosts,
+    (workshopId) => (workshopId === null ? NO_COSTS : this.costsOf(workshopId)),
+    NO_COSTS,
   );
 
   private async costsOf(workshopId: string): Promise<WorkshopCosts> {
-    const rows = await this.rows(workshopId);
+    const { rows, unreadable } = await this.rows(workshopId);
     const cells = new Map<string, MonthMaterialCost>();
     for (const row of rows) {
       const key = `${row.month}|${row.materialId}|${row.currency}`;
       const cell = cells.get(key) ?? { ...row, costMinor: 0 };
-      cells.set(key, { ...cell, costMinor: cell.costMinor + row.costMinor });
+      cells.set(key, { ...cell, costMinor: sumCostsMinor([cell.costMinor, row.costMinor]) });
     }
     return {
       report: summariseCosts(rows),
       byMonthAndMaterial: [...cells.values()].filter((cell) => cell.costMinor !== 0),
+      unreadable,
     };
   }
 
-  private async rows(workshopId: string): Promise<CostRow[]> {
+  private async rows(workshopId: string): Promise<{ rows: CostRow[]; unreadable: number }> {
     const { db } = this;
     const live = <T extends { deletedAt: string | null }>(row: T) => row.deletedAt === null;
     const entries = await db.ledgerEntries
@@ -62,7 +76,8 @@ export class CostBook {
     const materials = mapById(await db.materials.where(inWorkshop).toArray());
     const pours = mapById(await db.pours.where(inWorkshop).toArray());
     const builds = mapById(await db.builds.where(inWorkshop).toArray());
-    return entries.flatMap((entry) => {
+    const readable = entries.filter((entry) => ledgerEntryProblem(entry) === null && costRowProblem(entry) === null);
+    const rows = readable.flatMap((entry) => {
       const container = containers.get(entry.containerId);
       if (container === undefined) return [];
       const pour = entry.pourId === null ? undefined : pours.get(entry.pourId);
@@ -80,6 +95,7 @@ export class CostBook {
         },
       ];
     });
+    return { rows, unreadable: entries.length - readable.length };
   }
 }
 

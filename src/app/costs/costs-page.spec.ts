@@ -109,4 +109,37 @@ describe('CostsPage', () => {
     ]);
     expect(page.querySelector('canvas[role="img"]')).not.toBeNull();
   });
+
+  it('should never print NaN: a damaged entry is left out of the sums and the page says so', async () => {
+    await shelfWithUses();
+    const damaged = { ...synced, containerId: 'c-a', at: '2026-11-06T18:00:00Z', pourId: 'p-1', note: '' };
+    await db.ledgerEntries.bulkAdd([
+      { ...damaged, id: 'e-nan', kind: 'pour-use', quantity: -5, costMinor: Number.NaN },
+      { ...damaged, id: 'e-sign', kind: 'pour-use', quantity: 5, costMinor: 25 },
+    ] as never[]);
+    const fixture = TestBed.createComponent(CostsPage);
+    const page = fixture.nativeElement as HTMLElement;
+    await until(() => (fixture.detectChanges(), page.querySelector('[data-unreadable]')), 'the note');
+    await fixture.whenStable();
+
+    expect(page.textContent).not.toContain('NaN');
+    expect(page.querySelector('.total .amount')!.textContent).toContain('4.00');
+    expect(page.querySelector('[data-unreadable]')!.textContent).toContain('2 stock-book entries on this device');
+  });
+
+  it('should add exact costs and round each line once: three uses of 0.4 cent make a cent', async () => {
+    await shelfWithUses();
+    const tiny = { ...synced, containerId: 'c-a', kind: 'pour-use', quantity: -0.08, pourId: 'p-2', note: '' };
+    // hand-worked at 5 cents a gram: 0.08 g is 0.4 cent; three are 1.2 cents, shown as €0.01 more on the pond
+    await db.ledgerEntries.bulkAdd(
+      ['e-t1', 'e-t2', 'e-t3'].map((id) => ({ ...tiny, id, costMinor: 0.4, at: '2026-11-07T18:00:00Z' })) as never[],
+    );
+    const fixture = TestBed.createComponent(CostsPage);
+    const page = fixture.nativeElement as HTMLElement;
+    await until(() => (fixture.detectChanges(), page.querySelector('.total .amount')), 'the total');
+    await fixture.whenStable();
+
+    expect(rows(page, 'by-build')[0]).toEqual(['Duck pond', jasmine.stringContaining('1.51') as unknown as string]);
+    expect(page.querySelector('.total .amount')!.textContent).toContain('4.01');
+  });
 });

@@ -4,7 +4,12 @@ import { MatFormFieldModule } from '@angular/material/form-field';
 import { MatInputModule } from '@angular/material/input';
 import { MatSelectModule } from '@angular/material/select';
 import type { TemperatureUnit } from '@benchtide/shared';
-import { DevicePreferences, SCALE_RESOLUTIONS_G, type ThemeChoice } from '../core/device-preferences';
+import {
+  CUP_RESOLUTIONS_ML,
+  DevicePreferences,
+  SCALE_RESOLUTIONS_G,
+  type ThemeChoice,
+} from '../core/device-preferences';
 import { UnitSystemToggle } from '../core/unit-system-toggle';
 
 /** Choices that belong to this phone or computer: units, the kitchen scale, money and light or dark. */
@@ -29,6 +34,18 @@ import { UnitSystemToggle } from '../core/unit-system-toggle';
         >
           @for (step of resolutions; track step) {
             <mat-option [value]="step">{{ step }} g</mat-option>
+          }
+        </mat-select>
+      </mat-form-field>
+      <mat-form-field>
+        <mat-label>My mixing cup is marked every</mat-label>
+        <mat-select
+          [value]="values().cupResolutionMl"
+          (valueChange)="preferences.update({ cupResolutionMl: $event })"
+          data-field="cupResolutionMl"
+        >
+          @for (step of cupMarks; track step) {
+            <mat-option [value]="step">{{ step }} mL</mat-option>
           }
         </mat-select>
       </mat-form-field>
@@ -85,6 +102,7 @@ export class DeviceSettings {
 
   protected readonly values = this.preferences.values;
   protected readonly resolutions = SCALE_RESOLUTIONS_G;
+  protected readonly cupMarks = CUP_RESOLUTIONS_ML;
   protected readonly currencyProblem = signal<string | null>(null);
 
   protected setTemperature(temperatureUnit: TemperatureUnit): void {

@@ -4,11 +4,14 @@ import { FormControl, FormGroup } from '@angular/forms';
 import {
   displayUnitsFor,
   drawForPour,
+  formatMoney,
   fromCelsius,
   planPour,
+  sumCostsMinor,
   toCelsius,
   toMl,
   toMm,
+  wholeMinor,
   type DisplayUnits,
   type NewPour,
   type PourPlanRequestInput,
@@ -120,6 +123,7 @@ export class PourDraft {
       roomTempC: toCelsius(number(this.roomTemp()), units.temperature),
       startAtMs: this.startAtMs(),
       scaleResolutionG: this.preferences.values().scaleResolutionG,
+      cupResolutionMl: this.preferences.values().cupResolutionMl,
       ...layerCountFrom(value.layerCount),
     };
   });
@@ -148,8 +152,7 @@ export class PourDraft {
     const draw = this.draw();
     const currency = this.stock()[0]?.currency;
     if (draw === null || currency === undefined) return null;
-    const minor = draw.uses.reduce((sum, use) => sum + use.costMinor, 0);
-    return new Intl.NumberFormat(undefined, { style: 'currency', currency }).format(minor / 100);
+    return formatMoney(wholeMinor(sumCostsMinor(draw.uses.map((use) => use.costMinor))), currency);
   });
 
   /** The request "Start pour" sends, built once from the draft. */
@@ -180,6 +183,7 @@ export class PourDraft {
         roomTempC: request.roomTempC,
         startAt: new Date(this.startAtMs()).toISOString(),
         scaleResolutionG: request.scaleResolutionG ?? 0.1,
+        cupResolutionMl: request.cupResolutionMl ?? 1,
         ...(value.containerIds.length > 0 ? { containerIds: value.containerIds } : {}),
         whenShort: value.recordShortfall ? 'record-shortfall' : 'refuse',
         note: value.note,

@@ -156,6 +156,7 @@ export function toPlanRequest(
   value: PourFormValue,
   units: DisplayUnits,
   scaleResolutionG: number,
+  cupResolutionMl = 1,
 ): PourPlanRequestInput {
   const startAt = new Date(value.startAt).getTime();
   return {
@@ -167,6 +168,7 @@ export function toPlanRequest(
     roomTempC: toCelsius(number(value.roomTemp), units.temperature),
     startAtMs: Number.isFinite(startAt) ? startAt : Number.NaN,
     scaleResolutionG,
+    cupResolutionMl,
     ...layerCountFrom(value.layerCount),
   };
 }

@@ -3,7 +3,8 @@ import { MatButtonModule } from '@angular/material/button';
 import { MatCardModule } from '@angular/material/card';
 import { MatIconModule } from '@angular/material/icon';
 import {
-  decimalPlaces,
+  formatPart,
+  formatWeighed,
   formatDuration,
   formatLength,
   formatMass,
@@ -12,7 +13,6 @@ import {
   formatVolume,
   type DisplayUnits,
   type MaterialKind,
-  type PartAmounts,
   type PourPlanResult,
 } from '@benchtide/shared';
 import { format } from 'date-fns';
@@ -81,13 +81,8 @@ export class PourPlanSheet {
     const plan = this.plan();
     if (!plan) return null;
     const { mix, request } = plan;
-    const decimals = this.units().mass === 'g' ? decimalPlaces(request.scaleResolutionG) : undefined;
-    const mass = (g: number) => formatMass(g, this.units().mass, decimals === undefined ? {} : { decimals });
-    const volume = (ml: number) => formatVolume(ml, this.units().volume);
-    const part = (amounts: PartAmounts, which: 'A' | 'B') => ({
-      mass: mass(which === 'A' ? amounts.partAG : amounts.partBG),
-      volume: volume(which === 'A' ? amounts.partAMl : amounts.partBMl),
-    });
+    const mass = (g: number, exactG: number) => formatWeighed(g, request.scaleResolutionG, this.units().mass, exactG);
+    const part = (of: 'perLayer' | 'total', which: 'A' | 'B') => formatPart(mix, of, which, request, this.units());
     const ratio = request.material.mixRatio;
     return {
       byWeight: mix.basis === 'weight',
@@ -96,8 +91,12 @@ export class PourPlanSheet {
         ? 'single part'
         : `${formatNumber(ratio.partA)} : ${formatNumber(ratio.partB ?? 0)} by ${mix.basis}`,
       layerCount: mix.layerCount,
-      perLayer: { a: part(mix.perLayer, 'A'), b: part(mix.perLayer, 'B'), total: mass(mix.perLayer.totalG) },
-      total: { a: part(mix.total, 'A'), b: part(mix.total, 'B'), total: mass(mix.total.totalG) },
+      perLayer: {
+        a: part('perLayer', 'A'),
+        b: part('perLayer', 'B'),
+        total: mass(mix.perLayer.totalG, mix.exactPerLayer.totalG),
+      },
+      total: { a: part('total', 'A'), b: part('total', 'B'), total: mass(mix.total.totalG, mix.exactTotal.totalG) },
     };
   });
 

@@ -158,6 +158,47 @@ describe('PourPlanner', () => {
     });
   });
 
+  describe('the cup', () => {
+    beforeEach(render);
+
+    async function chooseCup(step: string): Promise<void> {
+      const select = await loader.getHarness(MatSelectHarness.with({ selector: '[data-field="cupResolutionMl"]' }));
+      await chooseIn(select, step);
+    }
+
+    it('should say "under 1 mL" for parts too small for the marks, and judge the ratio on what is shown', async () => {
+      // Worked by hand: 120 × 45 × 1 mm = 5.4 mL, + 10 % = 5.94 mL; 2:1 by volume is 3.96 + 1.98 mL,
+      // shown on 1 mL marks as 4 + 2 mL: (2/4) / (1/2) = exactly the ratio, no warning.
+      await shape.setValue('depth', '1');
+      expect(await sheet.getAmounts('part-a')).toEqual(['Part A', '4.4 g', '4 mL']);
+      expect(await sheet.getWarnings()).not.toContain('ratio-shifted-by-volume');
+
+      // 120 × 45 × 0.1 mm = 0.54 mL + 10 % = 0.594 mL: 0.396 + 0.198 mL, both under half a mark.
+      await shape.setValue('depth', '0.1');
+      expect((await sheet.getAmounts('part-a'))![2]).toBe('under 1 mL');
+      expect((await sheet.getAmounts('part-b'))![2]).toBe('under 1 mL');
+      expect(await sheet.getWarnings()).toContain('ratio-shifted-by-volume');
+
+      // On 0.1 mL marks: 0.4 + 0.2 mL, exactly 2:1 again; kept for the next plan on this device.
+      await chooseCup('0.1 mL');
+      expect(await sheet.getAmounts('part-a')).toEqual(['Part A', '0.4 g', '0.4 mL']);
+      expect(await sheet.getAmounts('part-b')).toEqual(['Part B', '0.2 g', '0.2 mL']);
+      expect(await sheet.getWarnings()).not.toContain('ratio-shifted-by-volume');
+      expect(JSON.parse(localStorage.getItem(PREFERENCES_KEY)!).cupResolutionMl).toBe(0.1);
+    });
+
+    it('should warn when the marks move the ratio past 2 %, and advise weighing, a finer cup or more', async () => {
+      // Worked by hand: 120 × 45 × 3.5 mm = 18.9 mL, + 10 % = 20.79 mL: 13.86 + 6.93 mL, on 2 mL marks
+      // 14 + 6 mL: (6/14) / (1/2) - 1 = -14.3 %, past the 2 % allowed without a data-sheet tolerance.
+      await shape.setValue('depth', '3.5');
+      await chooseCup('2 mL');
+      expect((await sheet.getAmounts('part-a'))![2]).toBe('14 mL');
+      expect((await sheet.getAmounts('part-b'))![2]).toBe('6 mL');
+      expect(await sheet.getWarnings()).toContain('ratio-shifted-by-volume');
+      expect(fixture.nativeElement.textContent).toContain('Weigh the parts instead');
+    });
+  });
+
   describe('layers', () => {
     beforeEach(render);
 

@@ -9,7 +9,7 @@ import { MatSelectModule } from '@angular/material/select';
 import { displayUnitsFor, MATERIAL_PRESETS, planPour, TEMPERATURE_LABELS, type DisplayUnits } from '@benchtide/shared';
 import { format } from 'date-fns';
 import { map, startWith } from 'rxjs';
-import { DevicePreferences, SCALE_RESOLUTIONS_G } from '../core/device-preferences';
+import { CUP_RESOLUTIONS_ML, DevicePreferences, SCALE_RESOLUTIONS_G } from '../core/device-preferences';
 import { UnitSystemToggle } from '../core/unit-system-toggle';
 import { PourPlanDraft } from './pour-plan-draft';
 import { PourPlanSheet } from './pour-plan-sheet';
@@ -48,6 +48,7 @@ export class PourPlanner {
   protected readonly form = this.draft.form;
   protected readonly presets = MATERIAL_PRESETS;
   protected readonly resolutions = SCALE_RESOLUTIONS_G;
+  protected readonly cupMarks = CUP_RESOLUTIONS_ML;
 
   protected readonly units = computed<DisplayUnits>(() => {
     const { unitSystem, temperatureUnit } = this.preferences.values();
@@ -55,6 +56,7 @@ export class PourPlanner {
   });
   protected readonly labels = computed(() => ({ temperature: TEMPERATURE_LABELS[this.units().temperature] }));
   protected readonly scaleResolutionG = computed(() => this.preferences.values().scaleResolutionG);
+  protected readonly cupResolutionMl = computed(() => this.preferences.values().cupResolutionMl);
 
   private readonly formValue = toSignal(
     this.form.valueChanges.pipe(
@@ -64,7 +66,9 @@ export class PourPlanner {
     { requireSync: true },
   );
   protected readonly result = computed(() => planPour(this.request()));
-  protected readonly request = computed(() => toPlanRequest(this.formValue(), this.units(), this.scaleResolutionG()));
+  protected readonly request = computed(() =>
+    toPlanRequest(this.formValue(), this.units(), this.scaleResolutionG(), this.cupResolutionMl()),
+  );
   protected readonly fewest = computed(() => {
     const request = this.request();
     return fewestLayers(request.depthMm, request.material.maxLayerMm, this.units());
@@ -109,6 +113,10 @@ export class PourPlanner {
 
   protected chooseResolution(scaleResolutionG: number): void {
     this.preferences.update({ scaleResolutionG });
+  }
+
+  protected chooseCupMarks(cupResolutionMl: number): void {
+    this.preferences.update({ cupResolutionMl });
   }
 
   protected typeLayers(typed: string): void {

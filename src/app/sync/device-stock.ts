@@ -1,4 +1,4 @@
-import { remainingByContainer, type ShelfContainer } from '@benchtide/shared';
+import { ledgerEntryProblem, remainingByContainer, type ShelfContainer } from '@benchtide/shared';
 import type { BenchDb } from './bench-db';
 
 const CONTAINER_NOT_HERE =
@@ -7,12 +7,14 @@ const CONTAINER_NOT_HERE =
 /**
  * What is left in each container by this device's stock book: the sum of its live entries, the ones
  * still waiting to be sent included. Call inside a live query to follow the stock as it changes.
+ * An entry that cannot be summed (not a number, wrong sign: a damaged store) is left out rather than
+ * turn the whole shelf into NaN; the server's stock book stays the truth and sync brings it back.
  */
 export async function remainingOnDevice(db: BenchDb, containerIds: readonly string[]): Promise<Record<string, number>> {
   const entries = await db.ledgerEntries
     .where('containerId')
     .anyOf([...containerIds])
-    .filter((entry) => entry.deletedAt === null)
+    .filter((entry) => entry.deletedAt === null && ledgerEntryProblem(entry) === null)
     .toArray();
   return remainingByContainer(entries.map((entry) => ({ ...entry, atMs: Date.parse(entry.at) })));
 }

@@ -274,11 +274,11 @@ describe('OfflineStore', () => {
       expect(pour?.plan.mix.total.partBG).toBe(9.9);
       expect(Object.keys(pour?.plan ?? {})).not.toContain('request');
       const uses = await db.ledgerEntries.where({ pourId: id }).toArray();
-      // 9.9 g × 2500 / 500 = 49.5 → 50 cents; 9.9 g × 2000 / 500 = 39.6 → 40 cents (each rounded half up).
+      // 9.9 g × 2500 / 500 = 49.5 cents; 9.9 g × 2000 / 500 = 39.6 cents, kept exact (shown sums round once).
       expect(uses.map((use) => [use.containerId, use.kind, use.quantity, use.costMinor])).toEqual(
         jasmine.arrayWithExactContents([
-          [partA, 'pour-use', -9.9, 50],
-          [partB, 'pour-use', -9.9, 40],
+          [partA, 'pour-use', -9.9, 49.5],
+          [partB, 'pour-use', -9.9, 39.6],
         ]),
       );
       for (const use of uses) {
@@ -525,8 +525,8 @@ describe('OfflineStore', () => {
         // Part A: 9.9 + 10.2 + 9.9 = 30.0 g of 500; part B: 9.9 + 10.0 + 9.9 = 29.8 g.
         expect(await stockOf(partA)).toBe(470);
         expect(await stockOf(partB)).toBe(470.2);
-        // 30.0 g × 2500 / 500 = 150 cents; 29.8 g × 2000 / 500 = 119.2 → 119 cents.
-        expect(await costOfPour()).toBe(269);
+        // 30.0 g × 2500 / 500 = 150 cents; 29.8 g × 2000 / 500 = 119.2 cents, kept exact.
+        expect(await costOfPour()).toBeCloseTo(269.2, 9);
         expect(await lastChange()).toEqual(
           jasmine.objectContaining({ type: 'pourLayer.create', data: jasmine.objectContaining({ id, number: 2 }) }),
         );
