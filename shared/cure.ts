@@ -30,7 +30,27 @@ export type CureWarningCode = 'below-minimum-temperature' | 'hot-room' | 'layer-
  * roughly halves the time, t = t_ref x 2^((T_ref - T) / 10).
  */
 export function correctForTemperature(minutesAtRef: number, refTempC: number, roomTempC: number): number {
+  minutes(minutesAtRef, 'A data-sheet time');
+  degrees(refTempC, "The data sheet's temperature");
+  degrees(roomTempC, 'Room temperature');
   return minutesAtRef * 2 ** ((refTempC - roomTempC) / 10);
+}
+
+function minutes(value: number, label: string): number {
+  if (!Number.isFinite(value) || value < 0) {
+    throw new RangeError(`${label} must be a finite number of 0 minutes or more, got ${value}`);
+  }
+  return value;
+}
+
+function degrees(value: number, label: string): number {
+  if (!Number.isFinite(value)) throw new RangeError(`${label} must be a finite number of degrees C, got ${value}`);
+  return value;
+}
+
+function instant(ms: number, label: string): number {
+  if (!Number.isFinite(ms)) throw new RangeError(`${label} must be epoch milliseconds, got ${ms}`);
+  return ms;
 }
 
 export interface TemperatureCorrection {
@@ -52,9 +72,8 @@ export function temperatureCorrection(
   dataSheet: Pick<CureDataSheet, 'referenceTempC' | 'minCureTempC'>,
   roomTempC: number,
 ): TemperatureCorrection {
-  if (!Number.isFinite(roomTempC)) {
-    throw new RangeError(`Room temperature must be a finite number of degrees C, got ${roomTempC}`);
-  }
+  degrees(roomTempC, 'Room temperature');
+  degrees(dataSheet.minCureTempC, 'The minimum cure temperature');
   const tooCold = roomTempC < dataSheet.minCureTempC;
   const effectiveTempC = tooCold ? dataSheet.minCureTempC : roomTempC;
   const warnings: TradeWarning<CureWarningCode>[] = [];
@@ -122,13 +141,18 @@ export interface CureTimeline extends Omit<TemperatureCorrection, 'warnings'> {
 
 /** A data sheet's times at one room temperature. */
 export function correctedTimes(dataSheet: CureDataSheet, factor: number): CorrectedTimes {
-  const at = (minutes: number) => factor * minutes;
+  if (!Number.isFinite(factor) || factor <= 0) {
+    throw new RangeError(`A temperature factor must be a finite number above 0, got ${factor}`);
+  }
+  const at = (value: number, label: string) => factor * minutes(value, label);
   return {
-    potLifeMin: at(dataSheet.potLifeMin),
-    recoatMin: at(dataSheet.recoatMin),
-    ...(dataSheet.recoatMaxMin === undefined ? {} : { recoatMaxMin: at(dataSheet.recoatMaxMin) }),
-    demouldMin: at(dataSheet.demouldMin),
-    fullCureMin: at(dataSheet.fullCureMin),
+    potLifeMin: at(dataSheet.potLifeMin, 'Pot life'),
+    recoatMin: at(dataSheet.recoatMin, 'Recoat time'),
+    ...(dataSheet.recoatMaxMin === undefined
+      ? {}
+      : { recoatMaxMin: at(dataSheet.recoatMaxMin, 'The end of the recoat window') }),
+    demouldMin: at(dataSheet.demouldMin, 'Demould time'),
+    fullCureMin: at(dataSheet.fullCureMin, 'Full cure'),
   };
 }
 
@@ -137,6 +161,8 @@ export const after = (fromMs: number, minutes: number) => fromMs + Math.round(mi
 
 /** One layer's moments, counted from when it goes on at the times of its room. */
 export function layerTimesAt(layer: number, pourAtMs: number, times: CorrectedTimes): LayerTimes {
+  if (!Number.isInteger(layer) || layer < 1) throw new RangeError(`A layer is numbered from 1, got ${layer}`);
+  instant(pourAtMs, 'When the layer went on');
   return {
     layer,
     pourAtMs,
@@ -151,9 +177,7 @@ export function cureTimeline(input: CureTimelineInput): CureTimeline {
   if (!Number.isInteger(layerCount) || layerCount < 1) {
     throw new RangeError(`Layer count must be a whole number of 1 or more, got ${layerCount}`);
   }
-  if (!Number.isFinite(startAtMs)) {
-    throw new RangeError(`Start time must be epoch milliseconds, got ${startAtMs}`);
-  }
+  instant(startAtMs, 'Start time');
   const correction = temperatureCorrection(dataSheet, input.roomTempC);
   const times = correctedTimes(dataSheet, correction.factor);
   const layers: LayerTimes[] = [];

@@ -139,11 +139,13 @@ function rank(item: StockOnHand, chosenContainerId: string | undefined): number 
 
 export function massToVolumeMl(g: number, densityGPerMl: number): number {
   assertDensity(densityGPerMl);
+  if (!Number.isFinite(g)) throw new RangeError(`A mass must be a finite number of grams, got ${g}`);
   return g / densityGPerMl;
 }
 
 export function volumeToMassG(ml: number, densityGPerMl: number): number {
   assertDensity(densityGPerMl);
+  if (!Number.isFinite(ml)) throw new RangeError(`A volume must be a finite number of millilitres, got ${ml}`);
   return ml * densityGPerMl;
 }
 

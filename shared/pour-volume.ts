@@ -21,25 +21,38 @@ export type PourShape =
 
 export type PourShapeKind = PourShape['kind'];
 
+/** The surface of a feature in mm². Refuses sides, diameters or an area that are not finite numbers of 0 or more. */
 export function shapeAreaMm2(shape: PourShape): number {
   switch (shape.kind) {
     case 'rectangle':
-      return shape.lengthMm * shape.widthMm;
+      return size(shape.lengthMm, 'Length') * size(shape.widthMm, 'Width');
     case 'circle':
-      return Math.PI * (shape.diameterMm / 2) ** 2;
+      return Math.PI * (size(shape.diameterMm, 'Diameter') / 2) ** 2;
     case 'ellipse':
-      return Math.PI * (shape.lengthMm / 2) * (shape.widthMm / 2);
+      return Math.PI * (size(shape.lengthMm, 'Length') / 2) * (size(shape.widthMm, 'Width') / 2);
     case 'polygon':
       return polygonAreaMm2(shape.points);
     case 'area':
-      return shape.areaMm2;
+      return size(shape.areaMm2, 'Area');
+    default:
+      throw new RangeError(`Unknown shape "${String((shape as { kind?: unknown }).kind)}"`);
   }
+}
+
+function size(value: number, label: string): number {
+  assertNonNegative(value, label);
+  return value;
 }
 
 /** Shoelace formula (Gauss's area formula); absolute, so the outline may run either way round. */
 export function polygonAreaMm2(points: readonly PointMm[]): number {
   if (points.length < 3) {
     throw new RangeError(`A traced outline needs at least 3 points, got ${points.length}`);
+  }
+  for (const point of points) {
+    if (!Number.isFinite(point.xMm) || !Number.isFinite(point.yMm)) {
+      throw new RangeError(`Every point of an outline needs finite x and y in mm, got ${point.xMm}, ${point.yMm}`);
+    }
   }
   let twiceArea = 0;
   points.forEach((point, index) => {

@@ -80,12 +80,19 @@ export function findScale(id: string): ScaleEntry | undefined {
 
 export function realToModelMm(realMm: number, ratio: number): number {
   assertRatio(ratio);
+  assertLength(realMm, 'A real length');
   return realMm / ratio;
 }
 
 export function modelToRealMm(modelMm: number, ratio: number): number {
   assertRatio(ratio);
+  assertLength(modelMm, 'A model length');
   return modelMm * ratio;
+}
+
+function assertLength(mm: number, label: string): void {
+  if (!Number.isFinite(mm) || mm < 0)
+    throw new RangeError(`${label} must be a finite number of 0 mm or more, got ${mm}`);
 }
 
 export interface Footprint {

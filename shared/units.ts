@@ -33,28 +33,38 @@ const ML_PER: Record<VolumeUnit, number> = {
 };
 const G_PER: Record<MassUnit, number> = { g: 1, kg: 1000, oz: G_PER_OUNCE, lb: G_PER_POUND };
 
+/** The factor for a unit, refusing one the table does not have rather than give NaN. */
+function factor<U extends string>(table: Record<U, number>, unit: U, what: string): number {
+  const found = Object.hasOwn(table, unit) ? table[unit] : undefined;
+  if (found === undefined) {
+    throw new RangeError(`Unknown ${what} unit "${String(unit)}"; use one of ${Object.keys(table).join(', ')}`);
+  }
+  return found;
+}
+
+// NaN passes through on purpose: a form field that cannot be read yet is NaN, and the schema says so in words.
 export function toMm(value: number, unit: LengthUnit): number {
-  return value * MM_PER[unit];
+  return value * factor(MM_PER, unit, 'length');
 }
 
 export function fromMm(mm: number, unit: LengthUnit): number {
-  return mm / MM_PER[unit];
+  return mm / factor(MM_PER, unit, 'length');
 }
 
 export function toMl(value: number, unit: VolumeUnit): number {
-  return value * ML_PER[unit];
+  return value * factor(ML_PER, unit, 'volume');
 }
 
 export function fromMl(ml: number, unit: VolumeUnit): number {
-  return ml / ML_PER[unit];
+  return ml / factor(ML_PER, unit, 'volume');
 }
 
 export function toG(value: number, unit: MassUnit): number {
-  return value * G_PER[unit];
+  return value * factor(G_PER, unit, 'mass');
 }
 
 export function fromG(g: number, unit: MassUnit): number {
-  return g / G_PER[unit];
+  return g / factor(G_PER, unit, 'mass');
 }
 
 /** NIST SP 811: t/degF = 1.8 t/degC + 32. */
@@ -68,11 +78,18 @@ export function fahrenheitToCelsius(fahrenheit: number): number {
 }
 
 export function toCelsius(value: number, unit: TemperatureUnit): number {
-  return unit === 'C' ? value : fahrenheitToCelsius(value);
+  return temperatureUnit(unit) === 'C' ? value : fahrenheitToCelsius(value);
 }
 
 export function fromCelsius(celsius: number, unit: TemperatureUnit): number {
-  return unit === 'C' ? celsius : celsiusToFahrenheit(celsius);
+  return temperatureUnit(unit) === 'C' ? celsius : celsiusToFahrenheit(celsius);
+}
+
+function temperatureUnit(unit: TemperatureUnit): TemperatureUnit {
+  if (unit !== 'C' && unit !== 'F') {
+    throw new RangeError(`Unknown temperature unit "${String(unit)}"; use C or F`);
+  }
+  return unit;
 }
 
 export interface DisplayUnits {
