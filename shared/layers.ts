@@ -12,7 +12,7 @@ export interface LayerSplit {
 // is 3.0000000000000004 in binary and must give 3 layers, not 4.
 const WHOLE_NUMBER_TOLERANCE = 1e-9;
 
-/** n = ceil(depth / max layer), each layer depth / n (design.md section 4). */
+/** n = ceil(depth / max layer), each layer depth / n (common practice: never thicker than the data sheet's maximum). */
 export function splitIntoLayers(depthMm: number, maxLayerMm: number): LayerSplit {
   if (!Number.isFinite(depthMm) || depthMm <= 0) {
     throw new RangeError(`Depth must be a finite number above 0 mm, got ${depthMm}`);

@@ -84,7 +84,7 @@ export function mixedDensityGPerMl(ratio: MixRatio, densityAGPerMl: number, dens
   if (ratio.basis === 'volume') {
     return fractionA * densityAGPerMl + fractionB * densityB;
   }
-  // By weight: volume of one gram of mix is wA/rhoA + wB/rhoB (design.md section 4).
+  // By weight: volume of one gram of mix is wA/rhoA + wB/rhoB (ideal mixing: the parts' volumes add).
   return 1 / (fractionA / densityAGPerMl + fractionB / densityB);
 }
 
@@ -214,7 +214,7 @@ function splitParts(
     const partBMl = volumeMl * fractionB;
     return amounts(partAMl, partBMl, partAMl * densityA, partBMl * densityB);
   }
-  // M = V / (wA/rhoA + wB/rhoB) (design.md section 4), then split by weight fractions.
+  // M = V / (wA/rhoA + wB/rhoB) (ideal mixing, as above), then split by weight fractions.
   const totalG = volumeMl * mixedDensity;
   const partAG = totalG * fractionA;
   const partBG = totalG * fractionB;

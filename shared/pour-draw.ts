@@ -1,6 +1,6 @@
 /**
  * What a pour takes from the shelf: the grams of each part, drawn from that part's containers oldest
- * first (design.md section 4), turned into each container's unit by density and costed from its price.
+ * first (first in, first out: common practice for stock that ages), turned into each container's unit by density and costed from its price.
  * The server draws this way when it records a pour, and a device the same way while offline, so the
  * stock both show agrees.
  */

@@ -37,7 +37,7 @@ describe('pours drawing on the shelf', () => {
   });
 
   // Worked by hand: 20 mL of a 1:1-by-weight mix with part densities 1.1 and 0.9 g/mL weighs
-  // 20 / (0.5/1.1 + 0.5/0.9) = 19.8 g (design.md section 4), so 9.9 g of each part.
+  // 20 / (0.5/1.1 + 0.5/0.9) = 19.8 g (ideal mixing: the parts' volumes add, common practice), so 9.9 g of each part.
   it('should plan on the server, take 9.9 g of each part, and cost it from the container prices', async () => {
     const partA = await addContainer(client, materialId, { part: 'A', sizeQty: 500, priceMinor: 2500 });
     const partB = await addContainer(client, materialId, { part: 'B', sizeQty: 500, priceMinor: 2000 });

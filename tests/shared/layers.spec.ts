@@ -2,7 +2,7 @@ import fc from 'fast-check';
 import { splitIntoLayers, volumePerLayerMl } from '../../shared/index.js';
 
 describe('layers', () => {
-  it('should pour 12 mm in 4 mm layers as exactly 3 layers (n = ceil(depth / max), design.md)', () => {
+  it('should pour 12 mm in 4 mm layers as exactly 3 layers (n = ceil(depth / max), common practice)', () => {
     expect(splitIntoLayers(12, 4)).toEqual({ count: 3, layerDepthMm: 4 });
   });
 
@@ -36,13 +36,20 @@ describe('layers', () => {
   const depth = fc.double({ min: 0.05, max: 200, noNaN: true });
   const maxLayer = fc.double({ min: 0.1, max: 50, noNaN: true });
 
-  it('should give layers that add back up to the depth (property)', () => {
-    fc.assert(
-      fc.property(depth, maxLayer, (depthMm, maxLayerMm) => {
-        const { count, layerDepthMm } = splitIntoLayers(depthMm, maxLayerMm);
-        expect(count * layerDepthMm).toBeCloseTo(depthMm, 9);
-      }),
-    );
+  it('should split depths into the layers worked out by hand (n = ceil(depth / max), common practice)', () => {
+    // [depth, maximum layer, layers, each layer], each worked by hand
+    const worked: [number, number, number, number][] = [
+      [25, 10, 3, 8.333333333333334], // 25 / 10 = 2.5 -> 3 layers of 25 / 3
+      [2.1, 0.7, 3, 0.7], // exactly 3 maximum layers, though 2.1 / 0.7 is 3.0000000000000004 in binary
+      [0.05, 50, 1, 0.05], // a skim coat is one layer
+      [60, 50, 2, 30], // 1.2 -> 2 layers of 30 mm, not one of 50 and one of 10
+      [100, 12.5, 8, 12.5],
+    ];
+    for (const [depthMm, maxLayerMm, count, layerDepthMm] of worked) {
+      const split = splitIntoLayers(depthMm, maxLayerMm);
+      expect(split.count).withContext(`${depthMm} at ${maxLayerMm}`).toBe(count);
+      expect(split.layerDepthMm).withContext(`${depthMm} at ${maxLayerMm}`).toBeCloseTo(layerDepthMm, 12);
+    }
   });
 
   it('should never exceed the maximum layer and never use more layers than needed (property)', () => {

@@ -58,7 +58,7 @@ function container(id: string, fields: Partial<ShelfContainer> = {}): ShelfConta
 
 describe('pour draw', () => {
   // Worked example by hand: 20 mL of a 1:1-by-weight mix with part densities 1.1 and 0.9 g/mL
-  // weighs 20 / (0.5/1.1 + 0.5/0.9) = 19.8 g (design.md section 4's weight-basis formula), 9.9 g a part.
+  // weighs 20 / (0.5/1.1 + 0.5/0.9) = 19.8 g (ideal mixing: the parts' volumes add, common practice), 9.9 g a part.
   const plan = planFor(twoPart);
 
   describe('partsNeeded', () => {
