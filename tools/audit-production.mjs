@@ -123,8 +123,22 @@ function failureOf(printed) {
   return typeof said === 'string' && said.trim() !== '' ? said.trim() : 'npm audit printed no report';
 }
 
+/**
+ * What npm said, without the addresses it named: reports are committed, and a service's address in
+ * them says nothing a reader can act on. "405 Method Not Allowed - POST https://…" is "405 Method Not Allowed".
+ */
+export function withoutAddresses(said) {
+  return said
+    .replace(/\s*-?\s*\b(?:GET|POST|PUT|HEAD)\s+[a-z][a-z0-9+.-]*:\/\/\S+/gi, '')
+    .replace(/\b[a-z][a-z0-9+.-]*:\/\/\S+/gi, 'the service')
+    .replace(/\b(?:[a-z0-9-]+\.)+(?:org|com|net|io|dev|app)\b/gi, 'the service')
+    .replace(/\b\d{1,3}(?:\.\d{1,3}){3}(?::\d+)?\b/g, 'the service')
+    .trim();
+}
+
 /** @returns {AuditResult} */
-function unavailable(why) {
+function unavailable(said) {
+  const why = withoutAddresses(said) || 'no answer';
   return {
     status: 'unavailable',
     high: null,

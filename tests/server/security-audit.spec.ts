@@ -130,6 +130,20 @@ describe('the production audit (security)', () => {
       expect(runTool(REFUSED).said).toContain('405 Method Not Allowed');
     });
 
+    it("should keep the service's address out of what it says, since reports are committed", () => {
+      const refused = tool.judgeAudit(REFUSED, []).message;
+      expect(refused).toContain('(405 Method Not Allowed)');
+      for (const said of [
+        refused,
+        tool.judgeAudit('{"error":{"code":"ENOTFOUND","summary":"getaddrinfo ENOTFOUND registry.npmjs.org"}}', [])
+          .message,
+        tool.judgeAudit('{"message":"connect ECONNREFUSED 10.0.0.7:443"}', []).message,
+      ]) {
+        expect(said).not.toMatch(/https?:|npmjs|registry\.|10\.0\.0\.7/);
+        expect(said).toContain('could not be reached');
+      }
+    });
+
     it('should give no counts a report could mistake for none found', () => {
       const result = tool.judgeAudit(REFUSED, []);
 
