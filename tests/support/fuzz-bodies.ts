@@ -51,6 +51,51 @@ export const oddScalar: fc.Arbitrary<unknown> = fc.oneof(
   fc.integer({ min: 1, max: 110_000 }).map((length) => 'x'.repeat(length)),
 );
 
+/** Text a spreadsheet would run as a formula if an export wrote it as it is (OWASP "CSV Injection"). */
+export const formulaText: fc.Arbitrary<string> = fc.oneof(
+  fc.constantFrom(
+    '=HYPERLINK("https://example.org/x","open")',
+    "+cmd|' /C calc'!A0",
+    '@SUM(1+1)*cmd|" /C calc"!A0',
+    '-2+3+cmd|" /C calc"!A0',
+    '=1+1',
+    '\t=1+1',
+    '\r=1+1',
+  ),
+  fc
+    .tuple(fc.constantFrom('=', '+', '-', '@'), fc.string({ unit: 'grapheme', maxLength: 30 }))
+    .map(([lead, rest]) => `${lead}${rest.trim()}x`),
+);
+
+/**
+ * Values a real bench never has but a schema might let through: an outline whose edges cross, sizes past
+ * any base, a million layers, a hair's-breadth maximum layer, and formula text.
+ */
+export const tradeEdge: fc.Arbitrary<unknown> = fc.oneof(
+  fc.constantFrom(
+    {
+      kind: 'polygon',
+      points: [
+        { xMm: 0, yMm: 0 },
+        { xMm: 100, yMm: 100 },
+        { xMm: 100, yMm: 0 },
+        { xMm: 0, yMm: 100 },
+      ],
+    },
+    { kind: 'rectangle', lengthMm: 1e7, widthMm: 1e7 },
+    { kind: 'circle', diameterMm: 1e300 },
+    { kind: 'area', areaMm2: 1e15 },
+    10_001,
+    1e7,
+    1e12,
+    1_000_000,
+    51,
+    1e-6,
+  ),
+  fc.integer({ min: 51, max: 10_000_000 }),
+  formulaText,
+);
+
 /** Arrays or objects nested far deeper than any record, up to the body size limit's worth of brackets. */
 export const deepNesting: fc.Arbitrary<unknown> = fc
   .tuple(fc.integer({ min: 50, max: 50_000 }), fc.boolean())
@@ -82,7 +127,10 @@ export function nearValid(valid: Record<string, unknown>): fc.Arbitrary<unknown>
   const paths = fieldPaths(valid);
   return fc.oneof(
     fc
-      .tuple(fc.constantFrom(...paths), fc.oneof({ arbitrary: oddScalar, weight: 4 }, fc.jsonValue()))
+      .tuple(
+        fc.constantFrom(...paths),
+        fc.oneof({ arbitrary: oddScalar, weight: 4 }, { arbitrary: tradeEdge, weight: 2 }, fc.jsonValue()),
+      )
       .map(([path, value]) => withField(valid, path, value)),
     fc.constantFrom(...paths).map((path) => withField(valid, path, undefined)),
     fc
