@@ -224,6 +224,15 @@ describe('ShelfPage', () => {
         expect(cell(containerId, 'stock-word')).toBe('');
       });
 
+      it('should never print NaN: an entry that is not a number is left out of what is left', async () => {
+        const { materialId, containerId } = await workedExample();
+        await putPourUse(db, containerId, Number.NaN);
+        await shown(materialId);
+
+        expect(cell(containerId, 'amount')).toBe('405.5 of 500 g');
+        expect(fixture.nativeElement.textContent).not.toContain('NaN');
+      });
+
       it('should head each material with its kind, its mix and where its safety data sheet is', async () => {
         const materialId = await material();
         await shown(materialId);
