@@ -5,6 +5,14 @@
  */
 import * as z from 'zod';
 import { layerCountSchema, materialDataSheetSchema, pourShapeSchema } from './schemas.js';
+import {
+  STOCK_DIMENSIONS,
+  STOCK_UNITS,
+  unitDimension,
+  unitMismatch,
+  type StockDimension,
+  type StockUnit,
+} from './stock-units.js';
 
 const id = (label: string) => z.uuid({ error: `${label} must be an id made by the app` });
 // A NUL character cannot be stored as text; refusing it here keeps it from failing a whole sync batch.
@@ -28,9 +36,70 @@ const day = (label: string) => z.iso.date({ error: `${label} must be a date (YYY
 
 export const BUILD_STATUSES = ['planning', 'building', 'finished'] as const;
 export const STEP_KINDS = ['base-and-terrain', 'painting', 'water-pour', 'detailing', 'other'] as const;
-export const MATERIAL_KINDS = ['two-part-epoxy', 'single-part-medium', 'water-gel', 'other'] as const;
+/** What is poured: planned from its data sheet, drawn by weight or volume. */
+export const POUR_MATERIAL_KINDS = ['two-part-epoxy', 'single-part-medium', 'water-gel'] as const;
+export const MATERIAL_KINDS = [
+  ...POUR_MATERIAL_KINDS,
+  'foam-and-boards',
+  'plaster-and-fillers',
+  'paints-and-washes',
+  'scenic',
+  'kits-figures-details',
+  'track',
+  'adhesives',
+  'other',
+] as const;
+export type MaterialKindName = (typeof MATERIAL_KINDS)[number];
+
+/** Each kind in the trade's plain words, as the shelf and the cost report name it. */
+export const MATERIAL_KIND_WORDS: Readonly<Record<MaterialKindName, string>> = {
+  'two-part-epoxy': 'Two-part epoxy',
+  'single-part-medium': 'Single-part medium',
+  'water-gel': 'Water gel',
+  'foam-and-boards': 'Foam and boards',
+  'plaster-and-fillers': 'Plaster and fillers',
+  'paints-and-washes': 'Paints and washes',
+  scenic: 'Scenic materials',
+  'kits-figures-details': 'Kits, figures and details',
+  track: 'Track',
+  adhesives: 'Adhesives',
+  other: 'Other',
+};
+
+export function isPourMaterialKind(kind: string): boolean {
+  return (POUR_MATERIAL_KINDS as readonly string[]).includes(kind);
+}
+
+/** How a material is kept, for the checks below: poured by its data sheet, or measured in one dimension. */
+export interface MaterialMeasure {
+  readonly kind: MaterialKindName;
+  readonly dataSheet?: unknown;
+  readonly measure?: StockDimension | null;
+}
+
+/** Where a material's measure does not hold together, and why, or null. */
+export function materialMeasureProblem(material: MaterialMeasure): { path: string; message: string } | null {
+  const poured = material.dataSheet !== undefined && material.dataSheet !== null;
+  if (isPourMaterialKind(material.kind) && !poured) {
+    return { path: 'dataSheet', message: 'A pour material needs the values from its data sheet, to plan its pours.' };
+  }
+  if (!poured && !material.measure) {
+    return { path: 'measure', message: 'Say how it is bought and used: by weight, volume, pieces, length or area.' };
+  }
+  return null;
+}
+
+/** Why a container's unit does not fit its material, or null: a poured material by weight or volume, the rest by their measure. */
+export function containerUnitProblem(material: MaterialMeasure, unit: StockUnit): string | null {
+  if (material.dataSheet !== undefined && material.dataSheet !== null) {
+    const dimension = unitDimension(unit);
+    return dimension === 'mass' || dimension === 'volume'
+      ? null
+      : 'A pour material is kept by weight or volume: choose g, kg, mL or L.';
+  }
+  return material.measure ? unitMismatch(unit, material.measure) : null;
+}
 export const CONTAINER_PARTS = ['A', 'B', 'single'] as const;
-export const STOCK_UNITS = ['g', 'mL'] as const;
 
 const buildFields = {
   name: requiredText('Name', 120),
@@ -66,7 +135,14 @@ export const stepPatchSchema = z.object(stepFields).partial();
 const materialFields = {
   name: requiredText('Name', 120),
   kind: z.enum(MATERIAL_KINDS, { error: 'Choose the kind of material' }),
-  dataSheet: materialDataSheetSchema,
+  /** Only what is poured has one; null for foam, paint, figures and the rest. */
+  dataSheet: materialDataSheetSchema.nullable(),
+  /** How a material without a data sheet is bought and used: by weight, volume, pieces, length or area. */
+  measure: z
+    .enum(STOCK_DIMENSIONS as [StockDimension, ...StockDimension[]], {
+      error: 'Measure must be by weight, volume, pieces, length or area',
+    })
+    .nullable(),
   shelfLifeOpenedDays: z
     .int({ error: 'Shelf life once opened must be a whole number of days' })
     .positive({ error: 'Shelf life once opened must be more than 0 days' })
@@ -75,18 +151,25 @@ const materialFields = {
   safetySheet: text('Safety data sheet', 500),
 };
 // The default belongs to a new material only: on a patch it would blank a sheet the change never touched.
-export const newMaterialSchema = z.object({
-  id: id('Material'),
-  ...materialFields,
-  safetySheet: materialFields.safetySheet.default(''),
-});
+export const newMaterialSchema = z
+  .object({
+    id: id('Material'),
+    ...materialFields,
+    dataSheet: materialFields.dataSheet.default(null),
+    measure: materialFields.measure.default(null),
+    safetySheet: materialFields.safetySheet.default(''),
+  })
+  .superRefine((material, context) => {
+    const problem = materialMeasureProblem(material);
+    if (problem) context.addIssue({ code: 'custom', path: [problem.path], message: problem.message });
+  });
 export const materialPatchSchema = z.object(materialFields).partial();
 
 const containerFields = {
   materialId: id('Material'),
   part: z.enum(CONTAINER_PARTS, { error: 'Part must be A, B or single' }),
   sizeQty: stockAmount(positive('Size', ''), 'Size'),
-  unit: z.enum(STOCK_UNITS, { error: 'Unit must be g or mL' }),
+  unit: z.enum(STOCK_UNITS, { error: `Unit must be one of ${STOCK_UNITS.join(', ')}` }),
   priceMinor: z.int({ error: 'Price must be a whole number of cents' }).min(0, { error: 'Price must be 0 or more' }),
   currency: z.string().regex(/^[A-Z]{3}$/, { error: 'Currency must be a three-letter code such as EUR' }),
   boughtOn: day('Bought on'),

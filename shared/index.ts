@@ -21,6 +21,7 @@ export * from './safety.js';
 export * from './scale.js';
 export * from './schemas.js';
 export * from './shelf-warnings.js';
+export * from './stock-units.js';
 export * from './sync-schemas.js';
 export * from './units.js';
 export * from './warning.js';

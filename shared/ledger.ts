@@ -2,9 +2,9 @@
  * The stock book. Stock on hand is never a stored counter: it is the sum of ledger
  * entries, so pours logged offline on two phones both count, in whatever order they sync.
  */
+import type { StockUnit } from './stock-units.js';
 
 export type LedgerKind = 'purchase' | 'pour-use' | 'waste' | 'stocktake';
-export type StockUnit = 'g' | 'mL';
 export type ContainerPart = 'A' | 'B' | 'single';
 
 export interface LedgerEntry {

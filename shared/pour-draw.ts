@@ -5,7 +5,8 @@
  * stock both show agrees.
  */
 import { formatMass } from './format.js';
-import { allocateFifo, costOfUseMinor, massToVolumeMl, type ContainerPart, type StockUnit } from './ledger.js';
+import { allocateFifo, costOfUseMinor, massToVolumeMl, type ContainerPart } from './ledger.js';
+import { convertAmount, unitDimension, type StockUnit } from './stock-units.js';
 import type { PourPlan } from './pour-plan.js';
 
 /** A container on the shelf, with what is left in it. */
@@ -88,34 +89,52 @@ export function drawForPour(
   const uses: PourUse[] = [];
   const shortfall: PourShortfall[] = [];
   for (const { part, quantityG, densityGPerMl } of partsNeeded(plan, needG)) {
+    // A pour draws by weight or volume; a container kept in pieces or metres is not for pouring.
     const candidates = containers.filter(
       (container) =>
-        container.part === part && (chosenContainerIds === undefined || chosenContainerIds.includes(container.id)),
+        container.part === part &&
+        isPourable(container.unit) &&
+        (chosenContainerIds === undefined || chosenContainerIds.includes(container.id)),
     );
     const allocation = allocateFifo(
       quantityG,
       candidates.map((container) => ({
         containerId: container.id,
         boughtAtMs: Date.parse(container.boughtOn),
-        remainingQty: Math.max(
-          0,
-          container.unit === 'g' ? container.remainingQty : container.remainingQty * densityGPerMl,
-        ),
+        remainingQty: Math.max(0, inGrams(container.remainingQty, container.unit, densityGPerMl)),
       })),
     );
     if (allocation.shortfallQty > 0) shortfall.push({ part, quantityG: allocation.shortfallQty });
     for (const { containerId, quantity: takenG } of allocation.allocations) {
       const container = candidates.find((candidate) => candidate.id === containerId)!;
-      // Grams back to millilitres can round a thousandth above what the container holds: never more than it holds.
-      const quantity =
-        container.unit === 'g'
-          ? takenG
-          : Math.min(container.remainingQty, Math.round(massToVolumeMl(takenG, densityGPerMl) * MILLI) / MILLI);
+      // Grams back to the container's unit can round a thousandth above what it holds: never more than it holds.
+      const quantity = Math.min(
+        container.remainingQty,
+        Math.round(fromGrams(takenG, container.unit, densityGPerMl) * MILLI) / MILLI,
+      );
       // A dense part's last milligram can round to 0 mL: there is then nothing to enter in the stock book.
       if (quantity > 0) uses.push({ containerId, part, quantity, costMinor: costOfUseMinor(quantity, container) });
     }
   }
   return { uses, shortfall };
+}
+
+function isPourable(unit: StockUnit): boolean {
+  const dimension = unitDimension(unit);
+  return dimension === 'mass' || dimension === 'volume';
+}
+
+/** An amount in a container's unit as grams: by weight directly, by volume through the part's density. */
+function inGrams(quantity: number, unit: StockUnit, densityGPerMl: number): number {
+  return unitDimension(unit) === 'mass'
+    ? convertAmount(quantity, unit, 'g')
+    : convertAmount(quantity, unit, 'mL') * densityGPerMl;
+}
+
+function fromGrams(g: number, unit: StockUnit, densityGPerMl: number): number {
+  return unitDimension(unit) === 'mass'
+    ? convertAmount(g, 'g', unit)
+    : convertAmount(massToVolumeMl(g, densityGPerMl), 'mL', unit);
 }
 
 /** Plain words for a pour the shelf cannot cover, naming each short part: what the shelf holds and what is needed. */

@@ -1,8 +1,9 @@
 /**
- * The usual cautions for pouring water effects, shown beside every plan. They are common
- * practice, not a substitute for the maker's safety data sheet or local rules.
+ * The usual cautions for the bench's materials: pouring water effects beside every plan, and cutting
+ * foam, sanding plaster, spraying paint and gluing on the shelf. They are common practice, not a
+ * substitute for the maker's safety data sheet or local rules.
  */
-import type { MaterialKind } from './material-presets.js';
+import type { MaterialKindName } from './domain-schemas.js';
 
 export interface SafetyCaution {
   readonly id: string;
@@ -30,6 +31,49 @@ const WATER_BASED: readonly SafetyCaution[] = [
 
 export const DEFERENCE_NOTE = "The maker's safety data sheet and your local rules come first.";
 
-export function safetyCautions(kind: MaterialKind): readonly SafetyCaution[] {
-  return kind === 'two-part-epoxy' ? TWO_PART : WATER_BASED;
+const FOAM: readonly SafetyCaution[] = [
+  {
+    id: 'hot-wire',
+    text: 'Cut foam with a hot wire only with fresh air moving and the wire no hotter than it needs: overheated polystyrene gives off harmful fumes.',
+  },
+  { id: 'blade', text: 'Cut away from your hand with a sharp blade; a blunt one slips.' },
+];
+
+const PLASTER: readonly SafetyCaution[] = [
+  { id: 'dust', text: 'Mix and sand plaster and fillers with a dust mask; keep the dust away from eyes.' },
+  { id: 'heat', text: 'Setting plaster warms up: never set a hand or body part in it.' },
+];
+
+const PAINTS: readonly SafetyCaution[] = [
+  {
+    id: 'air',
+    text: 'Spray and airbrush only with fresh air moving and a mask for fine mist; solvent paints need more.',
+  },
+  { id: 'flame', text: 'Keep solvent paints and thinners away from flames and heat.' },
+];
+
+const ADHESIVES: readonly SafetyCaution[] = [
+  { id: 'bond', text: 'Superglue bonds skin in seconds: keep debonder to hand and the nozzle away from eyes.' },
+  { id: 'air', text: 'Work with fresh air moving: glue and solvent cement fumes irritate eyes and lungs.' },
+];
+
+/** The cautions for a kind of material; none for what carries no usual hazard (figures, track, scatter). */
+export function safetyCautions(kind: MaterialKindName): readonly SafetyCaution[] {
+  switch (kind) {
+    case 'two-part-epoxy':
+      return TWO_PART;
+    case 'single-part-medium':
+    case 'water-gel':
+      return WATER_BASED;
+    case 'foam-and-boards':
+      return FOAM;
+    case 'plaster-and-fillers':
+      return PLASTER;
+    case 'paints-and-washes':
+      return PAINTS;
+    case 'adhesives':
+      return ADHESIVES;
+    default:
+      return [];
+  }
 }

@@ -1,3 +1,5 @@
+import type { StockUnit } from './stock-units.js';
+
 /**
  * What on the shelf needs the modeller's eye: containers running low (at or below the level they set)
  * and containers past, or near, their use-by day, including the shelf life that starts once opened.
@@ -8,7 +10,7 @@ export interface WatchedContainer {
   readonly id: string;
   readonly materialId: string;
   readonly part: 'A' | 'B' | 'single';
-  readonly unit: 'g' | 'mL';
+  readonly unit: StockUnit;
   /** YYYY-MM-DD */
   readonly openedOn?: string | null;
   readonly useBy?: string | null;

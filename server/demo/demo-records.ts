@@ -69,6 +69,7 @@ export async function seedDemoBench(
     name: 'Deep-pour epoxy (demo)',
     kind: 'two-part-epoxy',
     dataSheet: preset('deep-pour-epoxy'),
+    measure: null,
     shelfLifeOpenedDays: 180,
     safetySheet: 'Paper copy in the red folder by the bench',
   });
@@ -77,6 +78,7 @@ export async function seedDemoBench(
     name: 'Coating epoxy (demo)',
     kind: 'two-part-epoxy',
     dataSheet: preset('coating-epoxy'),
+    measure: null,
     shelfLifeOpenedDays: 365,
     safetySheet: '',
   });
@@ -85,6 +87,7 @@ export async function seedDemoBench(
     name: 'Ripple gel (demo)',
     kind: 'water-gel',
     dataSheet: preset('water-effect-gel'),
+    measure: null,
     shelfLifeOpenedDays: 365,
     safetySheet: '',
   });

@@ -22,6 +22,11 @@ type PourInput = z.output<typeof newPourSchema>;
 type PourPatch = z.output<typeof pourPatchSchema>;
 
 function plannedOrRefused(input: PourInput, dataSheet: typeof materials.$inferSelect.dataSheet): PourPlan {
+  if (dataSheet === null) {
+    throw new AppError(400, 'invalid', 'Some values need another look.', {
+      materialId: 'This material has no data sheet, so it cannot be poured: choose a pour material.',
+    });
+  }
   const result = planPour({ ...input, material: dataSheet, startAtMs: Date.parse(input.startAt) });
   if (result.ok) return result.plan;
   const fields = Object.fromEntries(result.errors.map((error) => [error.path, error.message]));

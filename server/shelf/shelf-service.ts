@@ -8,7 +8,9 @@ import type {
   stocktakeSchema,
   wasteSchema,
 } from '../../shared/domain-schemas.js';
+import { containerUnitProblem, materialMeasureProblem } from '../../shared/domain-schemas.js';
 import { costOfUseMinor, stocktakeAdjustment } from '../../shared/ledger.js';
+import { AppError } from '../core/app-error.js';
 import type { ServerContext } from '../context.js';
 import { containers, ledgerEntries, materials } from '../db/schema/index.js';
 import { insertRecord, liveRecord, patchRecord, tombstone, type RecordKind } from '../records/synced-records.js';
@@ -27,11 +29,26 @@ export function createMaterial(
   return insertRecord(tx, MATERIAL, { ...input, workshopId, changeNumber });
 }
 
-export function updateMaterial(
+/** A material edited; what it becomes must still hold together, and fit the containers it already has. */
+export async function updateMaterial(
   { tx, workshopId, changeNumber }: UnitOfWork,
   id: string,
   patch: z.output<typeof materialPatchSchema>,
 ) {
+  const material = { ...(await liveRecord(tx, workshopId, MATERIAL, id)), ...patch };
+  const problem = materialMeasureProblem(material);
+  if (problem)
+    throw new AppError(400, 'invalid', 'Some values need another look.', { [problem.path]: problem.message });
+  const held = await tx
+    .select({ unit: containers.unit })
+    .from(containers)
+    .where(and(eq(containers.materialId, id), isNull(containers.deletedAt)));
+  const misfit = held.map(({ unit }) => containerUnitProblem(material, unit)).find((words) => words !== null);
+  if (misfit) {
+    throw new AppError(400, 'invalid', `Its containers on the shelf no longer fit: ${misfit}`, {
+      measure: misfit,
+    });
+  }
   return patchRecord(tx, workshopId, MATERIAL, id, patch, changeNumber);
 }
 
@@ -47,7 +64,9 @@ export async function createContainer(
   { tx, workshopId, changeNumber }: UnitOfWork,
   input: z.output<typeof newContainerSchema>,
 ) {
-  await liveRecord(tx, workshopId, MATERIAL, input.materialId);
+  const material = await liveRecord(tx, workshopId, MATERIAL, input.materialId);
+  const misfit = containerUnitProblem(material, input.unit);
+  if (misfit) throw new AppError(400, 'invalid', 'Some values need another look.', { unit: misfit });
   const container = await insertRecord(tx, CONTAINER, { ...input, workshopId, changeNumber });
   // The purchase shares the container's id: one per container, and a replayed write makes no second one.
   await insertRecord(tx, LEDGER_ENTRY, {

@@ -1,6 +1,7 @@
 import { addDays, differenceInCalendarDays, formatISO, parseISO } from 'date-fns';
 import { and, eq, isNull } from 'drizzle-orm';
 import { USE_BY_NOTICE_DAYS } from '../../shared/shelf-warnings.js';
+import type { StockUnit } from '../../shared/stock-units.js';
 import type { ServerContext } from '../context.js';
 import { containers, containerStock, materials } from '../db/schema/index.js';
 import { authorize } from '../workshops/workshop-service.js';
@@ -8,7 +9,7 @@ import { authorize } from '../workshops/workshop-service.js';
 export interface ContainerOnShelf {
   id: string;
   part: 'A' | 'B' | 'single';
-  unit: 'g' | 'mL';
+  unit: StockUnit;
   sizeQty: number;
   remainingQty: number;
   priceMinor: number;

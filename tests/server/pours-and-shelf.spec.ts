@@ -150,6 +150,41 @@ describe('the shelf', () => {
     materialId = await addMaterial(client, { shelfLifeOpenedDays: 180 });
   });
 
+  it('should keep what is not poured in its own measure, and refuse units and pours that do not fit', async () => {
+    const foam = v7();
+    await client
+      .post('/materials', { id: foam, name: 'Blue foam board', kind: 'foam-and-boards', measure: 'area' })
+      .expect(201);
+    const sheet = await addContainer(client, foam, { part: 'single', sizeQty: 0.72, unit: 'm2', priceMinor: 1299 });
+    expect(await remaining(client, sheet)).toBe(0.72);
+
+    const grams = await client
+      .post('/containers', {
+        id: v7(),
+        materialId: foam,
+        part: 'single',
+        sizeQty: 500,
+        unit: 'g',
+        priceMinor: 100,
+        currency: 'EUR',
+        boughtOn: '2026-10-01',
+      })
+      .expect(400);
+    expect(grams.body.error.fields.unit).toBe('g is a weight, but this is measured as an area: choose m².');
+    const noMeasure = await client
+      .post('/materials', { id: v7(), name: 'Figures', kind: 'kits-figures-details' })
+      .expect(400);
+    expect(noMeasure.body.error.fields.measure).toContain('by weight, volume, pieces, length or area');
+    const toLength = await client.patch(`/materials/${foam}`, { measure: 'length' }).expect(400);
+    expect(toLength.body.error.message).toContain('Its containers on the shelf no longer fit');
+
+    const buildId = await addBuild(client);
+    const poured = await client.post('/pours', pourBody(buildId, foam)).expect(400);
+    expect(poured.body.error.fields.materialId).toBe(
+      'This material has no data sheet, so it cannot be poured: choose a pour material.',
+    );
+  });
+
   it('should record waste and a stocktake as ledger entries, and flag low stock', async () => {
     const container = await addContainer(client, materialId, { lowStockQty: 100 });
 

@@ -37,6 +37,7 @@ export async function makeRecords(ctx: ServerContext, owner: TestAccount, worksh
     name: 'Test resin',
     kind: 'two-part-epoxy',
     dataSheet: { ...TEST_DATA_SHEET, mixRatio: { ...TEST_DATA_SHEET.mixRatio } },
+    measure: null,
     safetySheet: '',
   });
   for (const [id, part] of [

@@ -43,6 +43,7 @@ await writeRecords(ctx, user!.id, workshop.id, createMaterial, {
   name: 'Bench resin',
   kind: 'two-part-epoxy',
   dataSheet,
+  measure: null,
   safetySheet: '',
 });
 const containerIds = { A: v7(), B: v7() };

@@ -11,7 +11,8 @@ import {
   timestamp,
   uuid,
 } from 'drizzle-orm/pg-core';
-import { CONTAINER_PARTS, MATERIAL_KINDS, STOCK_UNITS } from '../../../shared/domain-schemas.js';
+import { CONTAINER_PARTS, MATERIAL_KINDS } from '../../../shared/domain-schemas.js';
+import { STOCK_DIMENSIONS, STOCK_UNITS, type StockDimension } from '../../../shared/stock-units.js';
 import type { MaterialDataSheet } from '../../../shared/schemas.js';
 import { syncedColumns } from './synced-columns.js';
 
@@ -21,8 +22,10 @@ export const materials = pgTable(
     ...syncedColumns(),
     name: text('name').notNull(),
     kind: text('kind', { enum: MATERIAL_KINDS }).notNull(),
-    /** Validated with the shared data-sheet schema on the way in. */
-    dataSheet: jsonb('data_sheet').$type<MaterialDataSheet>().notNull(),
+    /** Validated with the shared data-sheet schema on the way in; null for what is not poured. */
+    dataSheet: jsonb('data_sheet').$type<MaterialDataSheet>(),
+    /** How a material without a data sheet is bought and used (weight, volume, pieces, length, area). */
+    measure: text('measure', { enum: STOCK_DIMENSIONS as [StockDimension, ...StockDimension[]] }),
     shelfLifeOpenedDays: integer('shelf_life_opened_days'),
     safetySheet: text('safety_sheet').notNull().default(''),
   },

@@ -7,6 +7,7 @@ import {
   type PourMilestone,
   type PourPlan,
   type ShelfWarning,
+  type StockUnit,
 } from '@benchtide/shared';
 import { format } from 'date-fns';
 import { AccountSession } from '../core/account-session';
@@ -42,7 +43,7 @@ export function followAt(pour: Pick<PourOnBench, 'record' | 'layers'>, nowMs: nu
 
 export interface ShelfNotice extends ShelfWarning {
   readonly materialName: string;
-  readonly unit: 'g' | 'mL';
+  readonly unit: StockUnit;
 }
 
 /** A fully cured pour stays on the bench this long, so the modeller sees it done. */

@@ -66,6 +66,7 @@ async function putMaterial(db: BenchDb, name: string): Promise<LocalMaterial> {
     name,
     kind: 'two-part-epoxy',
     dataSheet: DATA_SHEET,
+    measure: null,
     shelfLifeOpenedDays: null,
     safetySheet: '',
   };

@@ -83,6 +83,7 @@ export async function putMaterial(db: BenchDb, name: string, kind: LocalMaterial
     name,
     kind,
     dataSheet: ROUND_SHEET,
+    measure: null,
     shelfLifeOpenedDays: null,
     safetySheet: 'Maker’s sheet in the blue folder',
   };

@@ -1,11 +1,11 @@
 import {
   formatWeighed,
   formatLength,
-  formatMass,
+  formatStock,
   formatTemperature,
-  formatVolume,
   type DisplayUnits,
   type FollowedPour,
+  type StockUnit,
 } from '@benchtide/shared';
 import { format } from 'date-fns';
 import { followLocalPour } from '../pours/followed-pour';
@@ -113,8 +113,7 @@ function differs(atMs: number, plannedAtMs: number | undefined): string | null {
  */
 export function deletionWords(draw: PourDraw | undefined, units: DisplayUnits, locale: string): string[] {
   const drawn = (draw?.drawn ?? []).filter((line) => line.quantity > 0);
-  const amount = (quantity: number, unit: 'g' | 'mL') =>
-    unit === 'g' ? formatMass(quantity, units.mass) : formatVolume(quantity, units.volume);
+  const amount = (quantity: number, unit: StockUnit) => formatStock(quantity, unit, units.mass !== 'g');
   const stock =
     drawn.length === 0
       ? 'It drew nothing from the shelf, so no stock goes back.'

@@ -107,6 +107,7 @@ describe('LogPour', () => {
       name: 'Clear casting resin',
       kind: 'two-part-epoxy',
       dataSheet: DATA_SHEET,
+      measure: null,
       shelfLifeOpenedDays: null,
       safetySheet: '',
     };

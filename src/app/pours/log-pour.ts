@@ -18,7 +18,8 @@ import {
   fromMm,
   may,
   TEMPERATURE_LABELS,
-  type MaterialKind,
+  isPourMaterialKind,
+  type MaterialKindName,
   type PourUse,
 } from '@benchtide/shared';
 import { format } from 'date-fns';
@@ -88,10 +89,10 @@ export class LogPour {
   protected readonly stock = this.draft.stock;
   protected readonly material = this.draft.material;
   protected readonly units = this.draft.units;
-  /** A material of another kind gets the fullest set of cautions, the two-part resin's. */
-  protected readonly cautionKind = computed<MaterialKind>(() => {
+  /** A poured material of another kind gets the fullest set of cautions, the two-part resin's. */
+  protected readonly cautionKind = computed<MaterialKindName>(() => {
     const kind = this.material()?.kind;
-    return kind === undefined || kind === 'other' ? 'two-part-epoxy' : kind;
+    return kind === undefined || !isPourMaterialKind(kind) ? 'two-part-epoxy' : kind;
   });
   protected readonly temperatureLabel = computed(() => TEMPERATURE_LABELS[this.units().temperature]);
   protected readonly result = this.draft.result;

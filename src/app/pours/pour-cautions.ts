@@ -1,6 +1,6 @@
 import { ChangeDetectionStrategy, Component, computed, input } from '@angular/core';
 import { MatIconModule } from '@angular/material/icon';
-import { DEFERENCE_NOTE, safetyCautions, type MaterialKind } from '@benchtide/shared';
+import { DEFERENCE_NOTE, safetyCautions, type MaterialKindName } from '@benchtide/shared';
 
 /** The usual cautions for the material on screen, always ending with the data sheet's word. */
 @Component({
@@ -42,7 +42,7 @@ import { DEFERENCE_NOTE, safetyCautions, type MaterialKind } from '@benchtide/sh
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class PourCautions {
-  readonly materialKind = input.required<MaterialKind>();
+  readonly materialKind = input.required<MaterialKindName>();
 
   protected readonly cautions = computed(() => safetyCautions(this.materialKind()));
   protected readonly deference = DEFERENCE_NOTE;

@@ -5,7 +5,7 @@ import { BenchDb } from '../sync/bench-db';
 import { remainingOnDevice } from '../sync/device-stock';
 import { liveSignalOf } from '../sync/live-signal';
 import { OfflineStore } from '../sync/offline-store';
-import type { LocalBuild, LocalContainer, LocalMaterial, LocalPour } from '../sync/synced-records';
+import type { LocalBuild, LocalContainer, LocalPour, PourMaterial } from '../sync/synced-records';
 
 /** A container of the chosen material, with what is left in it by this device's stock book. */
 export type ContainerWithStock = ShelfContainer & Pick<LocalContainer, 'lot' | 'currency' | 'useBy'>;
@@ -32,12 +32,15 @@ export class PourLog {
     );
   }
 
-  materials(injector?: Injector): Signal<LocalMaterial[]> {
+  /** The workshop's pour materials: those with a data sheet to plan from; foam, paint and figures are not poured. */
+  materials(injector?: Injector): Signal<PourMaterial[]> {
     return this.workshopQuery(
       async (workshopId) =>
-        (await this.live(this.db.materials.where('workshopId').equals(workshopId))).sort((a, b) =>
-          a.name.localeCompare(b.name),
-        ),
+        (await this.live(this.db.materials.where('workshopId').equals(workshopId)))
+          .filter(
+            (material): material is PourMaterial => material.dataSheet !== null && material.dataSheet !== undefined,
+          )
+          .sort((a, b) => a.name.localeCompare(b.name)),
       injector,
     );
   }

@@ -11,7 +11,9 @@ import {
   CONTAINER_PARTS,
   containerPatchSchema,
   newContainerSchema,
-  STOCK_UNITS,
+  containerUnitProblem,
+  stockUnitsOf,
+  unitLabel,
   type ContainerPart,
   type NewContainer,
   type StockUnit,
@@ -87,13 +89,17 @@ export class ContainerForm {
   protected readonly material = this.data.material;
   protected readonly original = this.data.container;
   protected readonly parts = CONTAINER_PARTS.map((part) => ({ part, label: PART_LABELS[part] }));
-  protected readonly stockUnits = STOCK_UNITS;
+  /** The units that fit the material: weight or volume for what is poured, its own measure for the rest. */
+  protected readonly stockUnits = this.material.dataSheet
+    ? [...stockUnitsOf('mass'), ...stockUnitsOf('volume')]
+    : stockUnitsOf(this.material.measure ?? 'count');
+  protected readonly unitLabel = unitLabel;
   protected readonly form = new FormGroup({
     part: new FormControl<ContainerPart>(this.material.kind === 'two-part-epoxy' ? 'A' : 'single', {
       nonNullable: true,
     }),
     size: text(),
-    unit: new FormControl<StockUnit>('g', { nonNullable: true }),
+    unit: new FormControl<StockUnit>(this.stockUnits[0] ?? 'g', { nonNullable: true }),
     price: text(this.original ? fieldText(this.original.priceMinor / 100) : ''),
     currency: text(this.original?.currency ?? this.data.currency),
     boughtOn: text(localDay()),
@@ -104,7 +110,7 @@ export class ContainerForm {
   });
   /** What is being edited, in a line. */
   protected readonly title = this.original
-    ? `${PART_LABELS[this.original.part]}, ${quantityText(this.original.sizeQty)} ${this.original.unit} bought ${dayText(this.original.boughtOn)}`
+    ? `${PART_LABELS[this.original.part]}, ${quantityText(this.original.sizeQty)} ${unitLabel(this.original.unit)} bought ${dayText(this.original.boughtOn)}`
     : this.material.name;
 
   private readonly value = toSignal(
@@ -114,7 +120,7 @@ export class ContainerForm {
     ),
     { requireSync: true },
   );
-  protected readonly unit = computed(() => this.original?.unit ?? this.value().unit);
+  protected readonly unit = computed(() => unitLabel(this.original?.unit ?? this.value().unit));
   private readonly fields = computed<ContainerFields>(() => {
     const value = this.value();
     const lowStockQty = optionalNumber(value.lowStock);
@@ -157,6 +163,8 @@ export class ContainerForm {
     );
     const value = this.value();
     if (priceMinorOf(value.price) === null) messages.set('priceMinor', PRICE_NEEDED);
+    const misfit = this.original ? null : containerUnitProblem(this.material, value.unit);
+    if (misfit) messages.set('unit', misfit);
     const original = this.original;
     if (original?.openedOn && value.openedOn === '') {
       messages.set('openedOn', keptOnceSet('Opened on', 'correct the date instead'));

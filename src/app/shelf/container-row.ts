@@ -1,6 +1,9 @@
 import {
   effectiveUseBy,
   formatNumber,
+  MATERIAL_KIND_WORDS,
+  MEASURE_WORDS,
+  unitLabel,
   shelfWarnings,
   type ContainerPart,
   type MaterialDataSheet,
@@ -49,12 +52,7 @@ export interface ContainerRow {
   readonly filterText: string;
 }
 
-export const KIND_LABELS: Readonly<Record<LocalMaterial['kind'], string>> = {
-  'two-part-epoxy': 'Two-part epoxy',
-  'single-part-medium': 'Single-part medium',
-  'water-gel': 'Water gel',
-  other: 'Other',
-};
+export const KIND_LABELS: Readonly<Record<LocalMaterial['kind'], string>> = MATERIAL_KIND_WORDS;
 
 export const PART_LABELS: Readonly<Record<ContainerPart, string>> = {
   A: 'Part A',
@@ -69,7 +67,7 @@ export function quantityText(quantity: number): string {
 
 /** "320 of 500 g" */
 function amountText(remainingQty: number, container: Pick<LocalContainer, 'sizeQty' | 'unit'>): string {
-  return `${quantityText(remainingQty)} of ${quantityText(container.sizeQty)} ${container.unit}`;
+  return `${quantityText(remainingQty)} of ${quantityText(container.sizeQty)} ${unitLabel(container.unit)}`;
 }
 
 export function dayText(day: string): string {
@@ -81,7 +79,7 @@ export function pricePerUnitText(container: Pick<LocalContainer, 'priceMinor' | 
   const perUnit = container.priceMinor / 100 / container.sizeQty;
   const digits = perUnit >= 1 ? {} : { minimumFractionDigits: 2, maximumFractionDigits: 4 };
   const money = new Intl.NumberFormat(undefined, { style: 'currency', currency: container.currency, ...digits });
-  return `${money.format(perUnit)} / ${container.unit}`;
+  return `${money.format(perUnit)} / ${unitLabel(container.unit)}`;
 }
 
 /** Today on this device, as YYYY-MM-DD. */
@@ -113,7 +111,8 @@ export function containerRows(stock: MaterialStock, today: string): ContainerRow
     const row = {
       id: container.id,
       container,
-      partLabel: PART_LABELS[container.part],
+      // Parts belong to what is poured; anything else is simply a pack on the shelf.
+      partLabel: material.dataSheet ? PART_LABELS[container.part] : 'Pack',
       boughtOn: container.boughtOn,
       boughtOnText: dayText(container.boughtOn),
       lot: container.lot ?? '',
@@ -131,6 +130,12 @@ export function containerRows(stock: MaterialStock, today: string): ContainerRow
     const words = [row.partLabel, row.boughtOnText, row.lot, row.amountText, stockWord, row.openedText, row.useByText];
     return { ...row, filterText: [...words, useByWord].filter(Boolean).join(' ').toLowerCase() };
   });
+}
+
+/** What a material pours like (its data sheet's mix), or how it is measured when it is not poured. */
+export function measureLine(material: Pick<LocalMaterial, 'dataSheet' | 'measure'>): string {
+  if (material.dataSheet) return mixLine(material.dataSheet);
+  return material.measure ? MEASURE_WORDS[material.measure] : '';
 }
 
 /** The material's data sheet in a line, so a row of the shelf says what it pours like. */

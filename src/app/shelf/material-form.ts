@@ -11,12 +11,17 @@ import { MatSelectModule } from '@angular/material/select';
 import {
   DEFERENCE_NOTE,
   displayUnitsFor,
+  isPourMaterialKind,
   MATERIAL_KINDS,
   MATERIAL_PRESETS,
   materialPatchSchema,
+  MEASURE_WORDS,
   newMaterialSchema,
+  safetyCautions,
+  STOCK_DIMENSIONS,
   type DisplayUnits,
   type NewMaterial,
+  type StockDimension,
 } from '@benchtide/shared';
 import { map, startWith } from 'rxjs';
 import { parseDecimal } from '../core/decimal-input';
@@ -37,15 +42,19 @@ export interface MaterialFormData {
 type MaterialKind = LocalMaterial['kind'];
 type MaterialFields = Omit<NewMaterial, 'id'>;
 
+/** A stand-in id for checking the fields; the real one is made when the material is saved. */
+const CHECKING_ID = '00000000-0000-7000-8000-000000000000';
+
 function text(value = ''): FormControl<string> {
   return new FormControl(value, { nonNullable: true });
 }
 
 function createMaterialForm(material: LocalMaterial | null, units: DisplayUnits) {
-  const sheet = material ? dataSheetFields(material.dataSheet, units) : null;
+  const sheet = material?.dataSheet ? dataSheetFields(material.dataSheet, units) : null;
   return new FormGroup({
     name: text(material?.name ?? ''),
     kind: new FormControl<MaterialKind>(material?.kind ?? 'two-part-epoxy', { nonNullable: true }),
+    measure: new FormControl<StockDimension>(material?.measure ?? 'count', { nonNullable: true }),
     shelfLifeDays: text(material?.shelfLifeOpenedDays ? fieldText(material.shelfLifeOpenedDays) : ''),
     safetySheet: text(material?.safetySheet ?? ''),
     basis: new FormControl<'volume' | 'weight'>(sheet?.basis ?? 'volume', { nonNullable: true }),
@@ -106,6 +115,7 @@ export class MaterialForm {
 
   protected readonly editing = this.original !== null;
   protected readonly kinds = MATERIAL_KINDS.map((kind) => ({ kind, label: KIND_LABELS[kind] }));
+  protected readonly measures = STOCK_DIMENSIONS.map((measure) => ({ measure, label: MEASURE_WORDS[measure] }));
   protected readonly presets = MATERIAL_PRESETS;
   protected readonly deference = DEFERENCE_NOTE;
   protected readonly units: DisplayUnits = {
@@ -122,13 +132,20 @@ export class MaterialForm {
     ),
     { requireSync: true },
   );
+  /** What is poured keeps its data sheet; an "other" material that had one keeps it too. */
+  protected readonly poured = computed(
+    () => isPourMaterialKind(this.value().kind) || (this.value().kind === 'other' && !!this.original?.dataSheet),
+  );
+  protected readonly cautions = computed(() => safetyCautions(this.value().kind));
   private readonly fields = computed<MaterialFields>(() => {
     const value = this.value();
+    const poured = this.poured();
     const days = value.shelfLifeDays.trim() === '' ? undefined : (parseDecimal(value.shelfLifeDays) ?? Number.NaN);
     return {
       name: value.name,
       kind: value.kind,
-      dataSheet: dataSheetFrom(value, this.units),
+      dataSheet: poured ? dataSheetFrom(value, this.units) : null,
+      measure: poured ? null : value.measure,
       ...(days === undefined ? {} : { shelfLifeOpenedDays: days }),
       safetySheet: value.safetySheet,
     };
@@ -150,7 +167,7 @@ export class MaterialForm {
     const patch = this.patch();
     const messages = fieldMessages(
       patch === null
-        ? newMaterialSchema.omit({ id: true }).safeParse(this.fields())
+        ? newMaterialSchema.safeParse({ id: CHECKING_ID, ...this.fields() })
         : materialPatchSchema.safeParse(patch),
     );
     if (this.original?.shelfLifeOpenedDays && this.value().shelfLifeDays.trim() === '') {

@@ -397,6 +397,38 @@ describe('ShelfPage', () => {
         );
       });
 
+      it('should keep foam board by area with no data sheet, show its cautions, and offer m² for its sheets', async () => {
+        await render();
+        await settle('the empty shelf', () => query('[data-state="empty"]') !== null);
+        await pressOnPage('add-material');
+
+        await type('name', 'Blue foam board, 50 mm');
+        await choose('kind', 'Foam and boards');
+        expect(query('bt-data-sheet-fields')).toBeNull();
+        expect(inDialog('[data-cautions]')).toContain('hot wire');
+        expect(inDialog('[data-cautions]')).toContain('safety data sheet');
+        await choose('measure', 'by area');
+        await pressInDialog('Add material');
+        await closed('the material form to close');
+
+        const [saved] = await db.materials.toArray();
+        expect(saved).toEqual(jasmine.objectContaining({ kind: 'foam-and-boards', dataSheet: null, measure: 'area' }));
+        await settle('the new section', () => query(`[data-material="${saved!.id}"]`) !== null);
+        expect(query(`[data-material="${saved!.id}"]`)?.textContent).toContain('Foam and boards · by area');
+
+        await pressOnPage('add-container', saved!.id);
+        expect(query('[data-field="part"]')).toBeNull();
+        const toggles = await root.getAllHarnesses(MatButtonToggleHarness.with({ ancestor: '[data-field="unit"]' }));
+        expect(await Promise.all(toggles.map((toggle) => toggle.getText()))).toEqual(['m²']);
+        await type('size', '0.72');
+        await type('price', '12.99');
+        await pressInDialog('Add container');
+        await closed('the container form to close');
+        const [board] = await db.containers.toArray();
+        expect(board).toEqual(jasmine.objectContaining({ unit: 'm2', sizeQty: 0.72, priceMinor: 1299 }));
+        await settle('the new row', () => cell(board!.id, 'amount') === '0.72 of 0.72 m²');
+      });
+
       it('should refuse a material without a name in the schema’s words and write nothing', async () => {
         await render();
         await settle('the empty shelf', () => query('[data-state="empty"]') !== null);

@@ -11,7 +11,14 @@ import { RouterLink } from '@angular/router';
 import { DEFERENCE_NOTE } from '@benchtide/shared';
 import { firstValueFrom, map, timer } from 'rxjs';
 import { ContainerForm, type ContainerFormData } from './container-form';
-import { containerRows, KIND_LABELS, localDay, mixLine, type ContainerRow, type MaterialStock } from './container-row';
+import {
+  containerRows,
+  KIND_LABELS,
+  localDay,
+  measureLine,
+  type ContainerRow,
+  type MaterialStock,
+} from './container-row';
 import { ContainerTable, type ContainerAction } from './container-table';
 import { MaterialForm, type MaterialFormData } from './material-form';
 import { RemovalConfirm, type RemovalConfirmData } from './removal-confirm';
@@ -61,7 +68,7 @@ export class ShelfPage {
     const today = this.today();
     return shelf.map((stock) => ({
       stock,
-      kindText: `${KIND_LABELS[stock.material.kind]} · ${mixLine(stock.material.dataSheet)}`,
+      kindText: [KIND_LABELS[stock.material.kind], measureLine(stock.material)].filter(Boolean).join(' · '),
       sheetLink: WEB_ADDRESS.test(stock.material.safetySheet) ? stock.material.safetySheet : null,
       rows: containerRows(stock, today),
     }));

@@ -212,6 +212,7 @@ describe('ChangePull', () => {
         name: 'Test resin',
         kind: 'two-part-epoxy',
         dataSheet: materialDataSheetSchema.parse(TEST_DATA_SHEET),
+        measure: null,
         shelfLifeOpenedDays: null,
         safetySheet: '',
       };

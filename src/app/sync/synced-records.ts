@@ -37,6 +37,8 @@ type Fields<T extends z.ZodType> = Stored<Omit<z.output<T>, 'id'>>;
 export type LocalBuild = SyncedFields & Fields<typeof newBuildSchema> & { createdBy?: string | null };
 export type LocalStep = SyncedFields & Fields<typeof newStepSchema> & { loggedBy?: string | null };
 export type LocalMaterial = SyncedFields & Fields<typeof newMaterialSchema>;
+/** A material that can be poured: it has the values of its data sheet. */
+export type PourMaterial = LocalMaterial & { dataSheet: NonNullable<LocalMaterial['dataSheet']> };
 export type LocalContainer = SyncedFields & Fields<typeof newContainerSchema>;
 
 export interface LocalLedgerEntry extends SyncedFields {
