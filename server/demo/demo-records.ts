@@ -120,6 +120,28 @@ export async function seedDemoBench(
   await container(materials.coating, 'B', 250, 1450, 200, { openedOn: day(150), lowStockQty: 60 });
   const gel = await container(materials.gel, 'single', 200, 1290, 30, { openedOn: day(12) });
 
+  // What is not poured: a sheet of foam board kept by area and a pack of figures kept in pieces (invented).
+  const shelfMaterial = async (
+    name: string,
+    kind: 'foam-and-boards' | 'kits-figures-details',
+    measure: 'area' | 'count',
+  ) => {
+    const id = v7();
+    await writeRecords(ctx, ownerId, workshopId, createMaterial, {
+      id,
+      name,
+      kind,
+      dataSheet: null,
+      measure,
+      safetySheet: '',
+    });
+    return id;
+  };
+  const foam = await shelfMaterial('Extruded foam board, 50 mm (demo)', 'foam-and-boards', 'area');
+  const figures = await shelfMaterial('Standing figures, 1:87 (demo)', 'kits-figures-details', 'count');
+  await container(foam, 'single', 0.72, 1299, 45, { unit: 'm2', lowStockQty: 0.2 });
+  await container(figures, 'single', 12, 1150, 20, { unit: 'pcs', lowStockQty: 4 });
+
   const step = async (
     buildId: string,
     kind: 'base-and-terrain' | 'painting' | 'water-pour' | 'detailing',

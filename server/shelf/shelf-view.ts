@@ -63,10 +63,13 @@ export async function shelfOf(ctx: ServerContext, userId: string, workshopId: st
   return [...shelf.values()].map(({ material, containers: held }) => ({
     ...material,
     containers: held,
-    remainingByUnit: {
-      g: held.filter((c) => c.unit === 'g').reduce((sum, c) => sum + c.remainingQty, 0),
-      mL: held.filter((c) => c.unit === 'mL').reduce((sum, c) => sum + c.remainingQty, 0),
-    },
+    /** What is left in each unit its containers are kept in, summed to the thousandth. */
+    remainingByUnit: Object.fromEntries(
+      [...new Set(held.map((c) => c.unit))].map((unit) => [
+        unit,
+        held.filter((c) => c.unit === unit).reduce((sum, c) => sum + Math.round(c.remainingQty * 1000), 0) / 1000,
+      ]),
+    ),
   }));
 }
 

@@ -53,11 +53,19 @@ describe('the demo workshop seed', () => {
     const get = (path: string) => request(app).get(`/api/workshops/${club.id}${path}`).set('Cookie', cookie);
 
     const builds = (await get('/builds')).body as { scaleRatio: number }[];
-    const shelf = (await get('/shelf')).body as unknown[];
+    const shelf = (await get('/shelf')).body as { measure: string | null; remainingByUnit: object }[];
     const costs = (await get('/costs')).body as { byBuild: { costMinor: number }[] };
 
     expect(builds.map((build) => build.scaleRatio).sort((a, b) => a - b)).toEqual([35, 87.1, 160]);
-    expect(shelf.length).toBe(3);
+    // three pour materials and two that are not poured: foam board by area, figures in pieces
+    expect(shelf.length).toBe(5);
+    expect(
+      shelf
+        .map((entry) => entry.measure)
+        .filter(Boolean)
+        .sort(),
+    ).toEqual(['area', 'count']);
+    expect(shelf.map((entry) => entry.remainingByUnit)).toContain({ m2: 0.72 });
     expect(costs.byBuild.length).toBe(2);
     expect(costs.byBuild.every((line) => line.costMinor > 0)).toBeTrue();
   });
