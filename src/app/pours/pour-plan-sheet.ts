@@ -12,7 +12,7 @@ import {
   formatTemperature,
   formatVolume,
   type DisplayUnits,
-  type MaterialKind,
+  type MaterialKindName,
   type PourPlanResult,
 } from '@benchtide/shared';
 import { format } from 'date-fns';
@@ -34,7 +34,7 @@ const WHEN = 'EEE d MMM, HH:mm';
 export class PourPlanSheet {
   readonly result = input.required<PourPlanResult>();
   readonly units = input.required<DisplayUnits>();
-  readonly materialKind = input.required<MaterialKind>();
+  readonly materialKind = input.required<MaterialKindName>();
 
   /** The weigh view is open: only the amounts, very large, the screen kept on. */
   protected readonly weighing = signal(false);
