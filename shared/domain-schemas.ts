@@ -6,9 +6,9 @@
 import * as z from 'zod';
 import { layerCountSchema, materialDataSheetSchema, pourShapeSchema } from './schemas.js';
 import {
+  isPourableUnit,
   STOCK_DIMENSIONS,
   STOCK_UNITS,
-  unitDimension,
   unitMismatch,
   type StockDimension,
   type StockUnit,
@@ -92,10 +92,7 @@ export function materialMeasureProblem(material: MaterialMeasure): { path: strin
 /** Why a container's unit does not fit its material, or null: a poured material by weight or volume, the rest by their measure. */
 export function containerUnitProblem(material: MaterialMeasure, unit: StockUnit): string | null {
   if (material.dataSheet !== undefined && material.dataSheet !== null) {
-    const dimension = unitDimension(unit);
-    return dimension === 'mass' || dimension === 'volume'
-      ? null
-      : 'A pour material is kept by weight or volume: choose g, kg, mL or L.';
+    return isPourableUnit(unit) ? null : 'A pour material is kept by weight or volume: choose g, kg, mL or L.';
   }
   return material.measure ? unitMismatch(unit, material.measure) : null;
 }
@@ -139,7 +136,7 @@ const materialFields = {
   dataSheet: materialDataSheetSchema.nullable(),
   /** How a material without a data sheet is bought and used: by weight, volume, pieces, length or area. */
   measure: z
-    .enum(STOCK_DIMENSIONS as [StockDimension, ...StockDimension[]], {
+    .enum(STOCK_DIMENSIONS, {
       error: 'Measure must be by weight, volume, pieces, length or area',
     })
     .nullable(),

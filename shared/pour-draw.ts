@@ -6,7 +6,7 @@
  */
 import { formatMass } from './format.js';
 import { allocateFifo, costOfUseMinor, massToVolumeMl, type ContainerPart } from './ledger.js';
-import { convertAmount, unitDimension, type StockUnit } from './stock-units.js';
+import { convertAmount, isPourableUnit, unitDimension, type StockUnit } from './stock-units.js';
 import type { PourPlan } from './pour-plan.js';
 
 /** A container on the shelf, with what is left in it. */
@@ -93,7 +93,7 @@ export function drawForPour(
     const candidates = containers.filter(
       (container) =>
         container.part === part &&
-        isPourable(container.unit) &&
+        isPourableUnit(container.unit) &&
         (chosenContainerIds === undefined || chosenContainerIds.includes(container.id)),
     );
     const allocation = allocateFifo(
@@ -117,11 +117,6 @@ export function drawForPour(
     }
   }
   return { uses, shortfall };
-}
-
-function isPourable(unit: StockUnit): boolean {
-  const dimension = unitDimension(unit);
-  return dimension === 'mass' || dimension === 'volume';
 }
 
 /** An amount in a container's unit as grams: by weight directly, by volume through the part's density. */

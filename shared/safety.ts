@@ -57,23 +57,22 @@ const ADHESIVES: readonly SafetyCaution[] = [
   { id: 'air', text: 'Work with fresh air moving: glue and solvent cement fumes irritate eyes and lungs.' },
 ];
 
-/** The cautions for a kind of material; none for what carries no usual hazard (figures, track, scatter). */
+const CAUTIONS: Readonly<Record<MaterialKindName, readonly SafetyCaution[]>> = {
+  'two-part-epoxy': TWO_PART,
+  'single-part-medium': WATER_BASED,
+  'water-gel': WATER_BASED,
+  'foam-and-boards': FOAM,
+  'plaster-and-fillers': PLASTER,
+  'paints-and-washes': PAINTS,
+  adhesives: ADHESIVES,
+  // What carries no usual hazard: scatter, figures, track.
+  scenic: [],
+  'kits-figures-details': [],
+  track: [],
+  other: [],
+};
+
+/** The cautions for a kind of material; none for what carries no usual hazard. */
 export function safetyCautions(kind: MaterialKindName): readonly SafetyCaution[] {
-  switch (kind) {
-    case 'two-part-epoxy':
-      return TWO_PART;
-    case 'single-part-medium':
-    case 'water-gel':
-      return WATER_BASED;
-    case 'foam-and-boards':
-      return FOAM;
-    case 'plaster-and-fillers':
-      return PLASTER;
-    case 'paints-and-washes':
-      return PAINTS;
-    case 'adhesives':
-      return ADHESIVES;
-    default:
-      return [];
-  }
+  return CAUTIONS[kind];
 }

@@ -6,8 +6,8 @@
 import { formatNumber } from './format.js';
 import { G_PER_OUNCE, G_PER_POUND, ML_PER_US_FL_OZ, MM_PER_FOOT } from './units.js';
 
-export type StockDimension = 'mass' | 'volume' | 'count' | 'length' | 'area';
-export const STOCK_DIMENSIONS: readonly StockDimension[] = ['mass', 'volume', 'count', 'length', 'area'];
+export const STOCK_DIMENSIONS = ['mass', 'volume', 'count', 'length', 'area'] as const;
+export type StockDimension = (typeof STOCK_DIMENSIONS)[number];
 
 /** What a container is kept in: g and mL for pour materials, as before, and the bench's other units. */
 export const STOCK_UNITS = ['g', 'kg', 'mL', 'L', 'pcs', 'm', 'm2'] as const;
@@ -74,6 +74,12 @@ export function isStockUnit(unit: string): unit is StockUnit {
 
 export function unitDimension(unit: AmountUnit): StockDimension {
   return facts(unit).dimension;
+}
+
+/** A pour is weighed or measured out: only units of weight or volume hold what is poured. */
+export function isPourableUnit(unit: AmountUnit): boolean {
+  const dimension = unitDimension(unit);
+  return dimension === 'mass' || dimension === 'volume';
 }
 
 export function unitLabel(unit: AmountUnit): string {

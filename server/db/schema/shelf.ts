@@ -12,7 +12,7 @@ import {
   uuid,
 } from 'drizzle-orm/pg-core';
 import { CONTAINER_PARTS, MATERIAL_KINDS } from '../../../shared/domain-schemas.js';
-import { STOCK_DIMENSIONS, STOCK_UNITS, type StockDimension } from '../../../shared/stock-units.js';
+import { STOCK_DIMENSIONS, STOCK_UNITS } from '../../../shared/stock-units.js';
 import type { MaterialDataSheet } from '../../../shared/schemas.js';
 import { syncedColumns } from './synced-columns.js';
 
@@ -25,7 +25,7 @@ export const materials = pgTable(
     /** Validated with the shared data-sheet schema on the way in; null for what is not poured. */
     dataSheet: jsonb('data_sheet').$type<MaterialDataSheet>(),
     /** How a material without a data sheet is bought and used (weight, volume, pieces, length, area). */
-    measure: text('measure', { enum: STOCK_DIMENSIONS as [StockDimension, ...StockDimension[]] }),
+    measure: text('measure', { enum: STOCK_DIMENSIONS }),
     shelfLifeOpenedDays: integer('shelf_life_opened_days'),
     safetySheet: text('safety_sheet').notNull().default(''),
   },

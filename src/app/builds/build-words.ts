@@ -2,6 +2,7 @@ import {
   customScale,
   findScale,
   formatLength,
+  formatMoney,
   isValidRatio,
   wholeMinor,
   type BUILD_STATUSES,
@@ -67,10 +68,7 @@ export function activityText(at: string, nowMs: number): string {
 /** Money in the modeller's locale and the containers' currency: 1240 EUR minor units reads "€12.40". */
 export function moneyText(minor: number, currency: string, locale: string): string {
   try {
-    const format = new Intl.NumberFormat(locale, { style: 'currency', currency });
-    const decimals = format.resolvedOptions().maximumFractionDigits ?? 2;
-    // Costs are exact to a millionth of a cent; a shown sum is rounded once, here.
-    return format.format(wholeMinor(minor) / 10 ** decimals);
+    return formatMoney(minor, currency, locale);
   } catch {
     // A currency code the browser does not know: still the amount, with the code beside it.
     return `${(wholeMinor(minor) / 100).toFixed(2)} ${currency}`;
