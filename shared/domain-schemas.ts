@@ -96,6 +96,17 @@ export function containerUnitProblem(material: MaterialMeasure, unit: StockUnit)
   }
   return material.measure ? unitMismatch(unit, material.measure) : null;
 }
+/** A low mark needs both its amount and a unit that fits how the material is measured. */
+export function lowMarkProblem(
+  material: MaterialMeasure & { lowMarkQty?: number | null; lowMarkUnit?: StockUnit | null },
+): { path: string; message: string } | null {
+  const { lowMarkQty, lowMarkUnit } = material;
+  if (lowMarkQty == null) return null;
+  if (lowMarkUnit == null) return { path: 'lowMarkUnit', message: 'Choose the unit of the low mark' };
+  const misfit = containerUnitProblem(material, lowMarkUnit);
+  return misfit ? { path: 'lowMarkUnit', message: misfit } : null;
+}
+
 export const CONTAINER_PARTS = ['A', 'B', 'single'] as const;
 
 const buildFields = {
@@ -120,6 +131,12 @@ const stepFields = {
   title: requiredText('Title', 200),
   notes: text('Notes', 10_000),
   happenedAt: instant('When'),
+  /** Time spent at the bench on this step, when the modeller notes it; summed per build. */
+  minutesSpent: z
+    .int({ error: 'Time spent must be a whole number of minutes' })
+    .min(0, { error: 'Time spent must be 0 minutes or more' })
+    .max(100_000, { error: 'Time spent must be at most 100,000 minutes' })
+    .nullish(),
 };
 export const newStepSchema = z.object({
   id: id('Step'),
@@ -146,6 +163,12 @@ const materialFields = {
     .optional(),
   /** A link to the maker's safety data sheet, or where the paper copy is. */
   safetySheet: text('Safety data sheet', 500),
+  /** Buy more when all its containers together hold this much or less, in lowMarkUnit. */
+  lowMarkQty: stockAmount(
+    z.number({ error: 'Low mark must be a number' }).min(0, { error: 'Low mark must be 0 or more' }),
+    'Low mark',
+  ).nullish(),
+  lowMarkUnit: z.enum(STOCK_UNITS, { error: `Low mark unit must be one of ${STOCK_UNITS.join(', ')}` }).nullish(),
 };
 // The default belongs to a new material only: on a patch it would blank a sheet the change never touched.
 export const newMaterialSchema = z
@@ -157,7 +180,7 @@ export const newMaterialSchema = z
     safetySheet: materialFields.safetySheet.default(''),
   })
   .superRefine((material, context) => {
-    const problem = materialMeasureProblem(material);
+    const problem = materialMeasureProblem(material) ?? lowMarkProblem(material);
     if (problem) context.addIssue({ code: 'custom', path: [problem.path], message: problem.message });
   });
 export const materialPatchSchema = z.object(materialFields).partial();
@@ -177,6 +200,8 @@ const containerFields = {
     .min(0, { error: 'Low-stock level must be 0 or more' })
     .optional(),
   lot: text('Lot', 80).optional(),
+  /** Bought for one build alone (a kit for it): its cost is that build's, and the shelf says so. */
+  forBuildId: z.uuid({ error: 'Bought for must be a build of this workshop' }).nullish(),
 };
 export const newContainerSchema = z.object({ id: id('Container'), ...containerFields });
 export const containerPatchSchema = z
@@ -187,6 +212,13 @@ export const containerPatchSchema = z
 export const wasteSchema = z.object({
   id: id('Entry'),
   quantity: stockAmount(positive('Amount', ''), 'Amount'),
+  note: text('Note', 500).default(''),
+});
+/** What a build step took from a container: costed like a pour's use, charged to the step's build. */
+export const stepUseSchema = z.object({
+  id: id('Entry'),
+  stepId: id('Step'),
+  quantity: stockAmount(positive('Amount used', ''), 'Amount used'),
   note: text('Note', 500).default(''),
 });
 export const stocktakeSchema = z.object({

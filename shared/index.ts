@@ -27,3 +27,5 @@ export * from './units.js';
 export * from './warning.js';
 export * from './workshop-policy.js';
 export * from './reminder-preferences.js';
+export * from './kit-split.js';
+export * from './shopping-list.js';

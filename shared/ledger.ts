@@ -4,14 +4,17 @@
  */
 import type { StockUnit } from './stock-units.js';
 
-export type LedgerKind = 'purchase' | 'pour-use' | 'waste' | 'stocktake';
+export const LEDGER_KINDS = ['purchase', 'pour-use', 'step-use', 'waste', 'stocktake'] as const;
+export type LedgerKind = (typeof LEDGER_KINDS)[number];
+/** The entries that take stock away and carry its cost: a pour's or a step's use, and waste. */
+export const COSTED_KINDS: readonly LedgerKind[] = ['pour-use', 'step-use', 'waste'];
 export type ContainerPart = 'A' | 'B' | 'single';
 
 export interface LedgerEntry {
   readonly containerId: string;
   readonly kind: LedgerKind;
   /**
-   * Signed, in the container's unit: purchase +, pour use and waste -, stocktake the
+   * Signed, in the container's unit: purchase +, pour or step use and waste -, stocktake the
    * adjustment (counted - expected), so remaining is always a plain sum.
    */
   readonly quantity: number;
@@ -53,11 +56,19 @@ export function ledgerEntryProblem(entry: Pick<LedgerEntry, 'kind' | 'quantity'>
   if (kind === 'purchase' && quantity <= 0) {
     return `A purchase must add stock: its quantity must be above 0, got ${quantity}.`;
   }
-  if ((kind === 'pour-use' || kind === 'waste') && quantity >= 0) {
-    return `A ${kind === 'waste' ? 'waste' : 'pour use'} must take stock away: its quantity must be below 0, got ${quantity}.`;
+  if (COSTED_KINDS.includes(kind) && quantity >= 0) {
+    return `A ${KIND_WORDS[kind]} must take stock away: its quantity must be below 0, got ${quantity}.`;
   }
   return null;
 }
+
+const KIND_WORDS: Readonly<Record<LedgerKind, string>> = {
+  purchase: 'purchase',
+  'pour-use': 'pour use',
+  'step-use': 'step use',
+  waste: 'waste',
+  stocktake: 'stocktake',
+};
 
 /** What is left in each container: the sum of its entries. Refuses an entry that cannot be summed. */
 export function remainingByContainer(entries: readonly LedgerEntry[]): Record<string, number> {
